@@ -1,0 +1,29 @@
+// Every setting the server reads from its environment, in one place (see README "Configuration").
+// process.env rather than $env so scripts, tests and the app share one module.
+const env = process.env;
+
+export const config = {
+	databaseUrl: env.DATABASE_URL ?? 'postgres://loomwright@127.0.0.1:54329/loomwright',
+	// Secure, __Host- prefixed session cookie in production. Browsers accept Secure cookies on
+	// http://localhost, so the demo keeps them; LOOM_INSECURE_COOKIES=1 is for plain http on a LAN.
+	secureCookies: env.NODE_ENV === 'production' && env.LOOM_INSECURE_COOKIES !== '1',
+	origin: env.ORIGIN ?? 'http://localhost:5173',
+	smtp: {
+		host: env.SMTP_HOST ?? '127.0.0.1',
+		port: Number(env.SMTP_PORT ?? 2525),
+		user: env.SMTP_USER,
+		password: env.SMTP_PASSWORD,
+		secure: env.SMTP_SECURE === '1',
+		from: env.MAIL_FROM ?? 'Loomwright <no-reply@loomwright.test>'
+	},
+	s3: {
+		endpoint: env.S3_ENDPOINT ?? 'http://127.0.0.1:4569',
+		region: env.S3_REGION ?? 'us-east-1',
+		bucket: env.S3_BUCKET ?? 'loomwright-pages',
+		accessKeyId: env.S3_ACCESS_KEY_ID ?? 'S3RVER',
+		secretAccessKey: env.S3_SECRET_ACCESS_KEY ?? 'S3RVER',
+		forcePathStyle: env.S3_FORCE_PATH_STYLE !== '0'
+	},
+	// Shows the caught-mail page to admins; on wherever the local SMTP catcher is used.
+	devMail: env.LOOM_DEV_MAIL === '1'
+};
