@@ -1,0 +1,28 @@
+// Puts the signed-in account and its session on event.locals, and nothing else of note.
+import { redirect, type Handle, type HandleServerError } from '@sveltejs/kit';
+import * as session from '$lib/server/auth/session';
+
+export const handle: Handle = async ({ event, resolve }) => {
+	const { user, session: current } = await session.read(event.cookies);
+	if (user?.disabled && current) {
+		// Disabling ends sessions at once; this catches one created in the same instant.
+		await session.end(event.cookies, current.id);
+		event.locals.user = null;
+		event.locals.session = null;
+	} else {
+		event.locals.user = user;
+		event.locals.session = current;
+	}
+	// Signed-in pages live in the (app) group; its layout redirects too, but form actions run
+	// before any layout load, so the same rule is applied here first.
+	if (!event.locals.user && event.route.id?.startsWith('/(app)')) {
+		const next = event.url.pathname + event.url.search;
+		redirect(303, `/signin?next=${encodeURIComponent(next)}`);
+	}
+	return resolve(event);
+};
+
+export const handleError: HandleServerError = ({ error, event, status }) => {
+	if (status !== 404) console.error('[server]', event.request.method, event.url.pathname, error);
+	return { message: 'Something went wrong on our side. Try again in a moment.' };
+};

@@ -1,0 +1,55 @@
+// Vehicles in a garage: the rows and their JSON form. Access is decided by ../access.ts.
+import { count, desc, eq } from 'drizzle-orm';
+import type { User as SessionUser } from 'lucia';
+import { visibleVehicles } from '../access';
+import { db } from '../db';
+import { diagrams, vehicles, type Vehicle } from '../db/schema';
+import type { VehicleInput } from '../forms';
+
+export type VehicleJson = ReturnType<typeof toJson>;
+
+export function toJson(v: Vehicle) {
+	return {
+		id: v.id,
+		name: v.name,
+		make: v.make,
+		model: v.model,
+		year: v.year,
+		systemVoltage: v.systemVoltage,
+		earthPolarity: v.earthPolarity,
+		notes: v.notes,
+		createdAt: v.createdAt.toISOString(),
+		updatedAt: v.updatedAt.toISOString()
+	};
+}
+
+/** The account's vehicles, newest first, each with how many diagrams it has. */
+export async function listFor(user: Pick<SessionUser, 'id'>) {
+	const rows = await db
+		.select({ vehicle: vehicles, diagrams: count(diagrams.id) })
+		.from(vehicles)
+		.leftJoin(diagrams, eq(diagrams.vehicleId, vehicles.id))
+		.where(visibleVehicles(user))
+		.groupBy(vehicles.id)
+		.orderBy(desc(vehicles.createdAt));
+	return rows.map((r) => ({ ...toJson(r.vehicle), diagramCount: r.diagrams }));
+}
+
+export async function create(ownerId: string, input: VehicleInput): Promise<Vehicle> {
+	const [vehicle] = await db.insert(vehicles).values({ ...input, ownerId }).returning();
+	return vehicle;
+}
+
+export async function update(id: string, input: Partial<VehicleInput>): Promise<Vehicle> {
+	const [vehicle] = await db
+		.update(vehicles)
+		.set({ ...input, updatedAt: new Date() })
+		.where(eq(vehicles.id, id))
+		.returning();
+	return vehicle;
+}
+
+/** Deletes the vehicle and, through the foreign keys, its diagrams and their revisions. */
+export async function remove(id: string): Promise<void> {
+	await db.delete(vehicles).where(eq(vehicles.id, id));
+}

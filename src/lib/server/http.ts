@@ -1,0 +1,58 @@
+// The JSON API's edges: one error shape everywhere,
+// `{ error: string, issues?: [{ path, message }] }`, and body parsing that names bad fields.
+import { error, isHttpError, json, type RequestEvent } from '@sveltejs/kit';
+import type { z } from 'zod';
+import { fromZod, type Issue } from './issues';
+
+export interface ApiError {
+	error: string;
+	issues?: Issue[];
+	/** Only on 409: the diagram's current revision. */
+	revision?: number;
+}
+
+export function apiError(status: number, body: ApiError): Response {
+	return json(body, { status });
+}
+
+/** Thrown inside a handler to answer 400 with the issues. */
+export class BadRequest extends Error {
+	constructor(
+		message: string,
+		readonly issues?: Issue[]
+	) {
+		super(message);
+	}
+}
+
+/** Wraps an endpoint so thrown errors (access checks, bad bodies) become the JSON error shape. */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export function endpoint<E extends RequestEvent<any, any>>(
+	handler: (event: E) => Promise<Response>
+): (event: E) => Promise<Response> {
+	return async (event: E) => {
+		try {
+			return await handler(event);
+		} catch (e) {
+			if (e instanceof BadRequest) return apiError(400, { error: e.message, issues: e.issues });
+			if (isHttpError(e)) return apiError(e.status, { error: e.body.message });
+			console.error('[api]', event.request.method, event.url.pathname, e);
+			return apiError(500, { error: 'Something went wrong on our side. Try again in a moment.' });
+		}
+	};
+}
+
+/** Reads and validates a JSON body; malformed JSON or a failed schema throws BadRequest. */
+export async function readBody<S extends z.ZodType>(request: Request, schema: S): Promise<z.infer<S>> {
+	let body: unknown;
+	try {
+		body = await request.json();
+	} catch {
+		throw new BadRequest('The request body is not valid JSON.');
+	}
+	const parsed = schema.safeParse(body);
+	if (!parsed.success) throw new BadRequest('Some fields need fixing.', fromZod(parsed.error));
+	return parsed.data;
+}
+
+export { error };
