@@ -4,7 +4,7 @@ import { and, desc, eq, sql } from 'drizzle-orm';
 import type { User as SessionUser } from 'lucia';
 import { visibleDiagrams } from '../access';
 import { db } from '../db';
-import { diagramRevisions, diagrams, type Diagram, type Vehicle } from '../db/schema';
+import { diagramRevisions, diagrams, users, type Diagram, type Vehicle } from '../db/schema';
 import { newDocument, summarise, type DiagramDocument } from '../documents';
 
 export function toJson(d: Diagram, withDocument = false) {
@@ -96,10 +96,14 @@ export async function remove(id: string): Promise<void> {
 	await db.delete(diagrams).where(eq(diagrams.id, id));
 }
 
-export async function history(id: string) {
-	return db
-		.select({ revision: diagramRevisions.revision, authorId: diagramRevisions.authorId, createdAt: diagramRevisions.createdAt })
+/** The latest revisions of a diagram with who saved them, newest first. */
+export async function history(id: string, limit = 20) {
+	const rows = await db
+		.select({ revision: diagramRevisions.revision, author: users.displayName, createdAt: diagramRevisions.createdAt })
 		.from(diagramRevisions)
+		.leftJoin(users, eq(users.id, diagramRevisions.authorId))
 		.where(eq(diagramRevisions.diagramId, id))
-		.orderBy(desc(diagramRevisions.revision));
+		.orderBy(desc(diagramRevisions.revision))
+		.limit(limit);
+	return rows.map((r) => ({ revision: r.revision, author: r.author ?? 'a deleted account', savedAt: r.createdAt.toISOString() }));
 }

@@ -1,0 +1,25 @@
+import { fail, redirect } from '@sveltejs/kit';
+import * as accounts from '$lib/server/auth/accounts';
+import * as session from '$lib/server/auth/session';
+import { formObject, signUpForm } from '$lib/server/forms';
+import { fieldErrors, fromZod } from '$lib/server/issues';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = ({ locals }) => {
+	if (locals.user) redirect(303, '/garage');
+};
+
+export const actions: Actions = {
+	default: async ({ request, cookies }) => {
+		const raw = formObject(await request.formData());
+		const values = { displayName: raw.displayName ?? '', email: raw.email ?? '' };
+		const parsed = signUpForm.safeParse(raw);
+		if (!parsed.success) return fail(400, { values, errors: fieldErrors(fromZod(parsed.error)) });
+
+		const result = await accounts.createAccount(parsed.data);
+		if (!result.ok) return fail(400, { values, errors: { [result.field]: result.message } });
+
+		await session.start(cookies, result.user.id);
+		redirect(303, '/garage');
+	}
+};
