@@ -36,21 +36,31 @@ const voltage = z.coerce
 
 const polarity = z.enum(['negative', 'positive'], { error: 'Choose negative or positive earth.' });
 
-export const vehicleFields = z.object({
+// The fields without defaults: PATCH must not fill in fields it was not sent.
+const vehicleShape = {
 	name: required('Name', 80),
-	make: text('Make', 60).default(''),
-	model: text('Model', 60).default(''),
-	year: text('Year', 20).default(''),
+	make: text('Make', 60),
+	model: text('Model', 60),
+	year: text('Year', 20),
 	systemVoltage: voltage,
 	earthPolarity: polarity,
-	notes: text('Notes', 4000).default('')
+	notes: text('Notes', 4000)
+};
+
+export const vehicleFields = z.object({
+	...vehicleShape,
+	make: vehicleShape.make.default(''),
+	model: vehicleShape.model.default(''),
+	year: vehicleShape.year.default(''),
+	notes: vehicleShape.notes.default('')
 });
 export type VehicleInput = z.infer<typeof vehicleFields>;
 
 /** PATCH: any subset of the fields, at least one. */
-export const vehiclePatch = vehicleFields.partial().refine((v) => Object.keys(v).length > 0, {
-	message: 'Send at least one field to change.'
-});
+export const vehiclePatch = z
+	.object(vehicleShape)
+	.partial()
+	.refine((v) => Object.keys(v).length > 0, { message: 'Send at least one field to change.' });
 
 export const diagramTitle = required('Title', 120);
 
