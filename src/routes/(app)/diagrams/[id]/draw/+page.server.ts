@@ -1,0 +1,15 @@
+import { requireDiagram, canEdit } from '$lib/server/access';
+import * as diagrams from '$lib/server/garage/diagrams';
+import * as vehicles from '$lib/server/garage/vehicles';
+import type { PageServerLoad } from './$types';
+
+// The drawing board loads the diagram with its document; editing is offered only to those who
+// may edit (others see the drawing read-only).
+export const load: PageServerLoad = async ({ locals, params }) => {
+	const { diagram, vehicle } = await requireDiagram(locals, params.id, 'view');
+	return {
+		diagram: diagrams.toJson(diagram, true),
+		vehicle: vehicles.toJson(vehicle),
+		editable: canEdit(locals.user, diagram)
+	};
+};
