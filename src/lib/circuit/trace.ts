@@ -17,6 +17,7 @@ import { dominatorTree, dominatorsOf, nearestCommonDominator, type DominatorTree
 import { CHASSIS, listNodes, nodeOfTerminal } from './nets';
 import { earthedTerminal, liveTerminal } from './parts';
 import { viewScenario, type Scenario } from './scenario';
+import { relayStates } from './solve';
 import type { HarnessDocument, Part, TerminalRef } from './schema';
 
 export type TracePoint =
@@ -29,7 +30,7 @@ type Vertex = TracePoint | { type: 'target'; part: string };
 export type Side = 'feed' | 'earth';
 
 export interface TraceOptions {
-	/** Relays whose coils are energised (their 30–87 contact closed, 30–87a open). Default: none. */
+	/** Relays whose coils are energised (30–87 closed, 30–87a open). Default: found by a DC solve of the scenario. */
 	energised?: ReadonlySet<string>;
 	/** Most paths to list (paths can multiply in meshed wiring); default 64. */
 	maxPaths?: number;
@@ -183,7 +184,7 @@ function build(doc: HarnessDocument, scenario: Scenario, energised: ReadonlySet<
 
 /** Prepare a tracer for one document and scenario; reuse it for many questions. */
 export function prepareTrace(doc: HarnessDocument, scenario: Scenario, options: TraceOptions = {}): Tracer {
-	const g = build(doc, scenario, options.energised ?? new Set());
+	const g = build(doc, scenario, options.energised ?? relayStates(doc, scenario));
 	const maxPaths = options.maxPaths ?? 64;
 	const trees: Partial<Record<Side, DominatorTree>> = {};
 	const tree = (side: Side) => (trees[side] ??= dominatorTree(g.succ, side === 'feed' ? g.live : g.earthed));

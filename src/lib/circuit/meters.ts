@@ -1,0 +1,149 @@
+/**
+ * Meter models: what a DMM or a test lamp would show at a probe point.
+ *
+ * - Volts: the meter is a 10 MΩ resistor from the point to its black lead (TRADE.md: DMM
+ *   input ≥ 10 MΩ). It barely loads the circuit, so a high-resistance joint can read full
+ *   voltage on it.
+ * - Volt drop: the meter across two points with the circuit working ("under load").
+ * - Ohms: the battery (and a running generator) disconnected, a 1 mA test current from the
+ *   meter (TRADE.md, from memory), R = V / I; "OL" above the range.
+ * - Test lamp: a bulb of a few watts, hot resistance V²/P, from the point to earth; brightness
+ *   is the power it gets over its rated power. It loads the circuit and shows a drop.
+ */
+import { addCurrentSource, addElement, buildCircuit, type Circuit } from './circuit';
+import { lampResistance } from './parts';
+import type { Scenario } from './scenario';
+import type { HarnessDocument, TerminalRef } from './schema';
+import { solveCircuit, type Solution } from './solve';
+
+/** Where a probe goes: a part's terminal, a wire's end (behind its joint), the chassis, or the battery's earthed post. */
+export type ProbePoint = TerminalRef | { wire: string; end: 'from' | 'to' } | 'chassis' | 'earth';
+
+export const DMM_INPUT_OHMS = 10e6;
+export const OHMS_TEST_CURRENT = 1e-3;
+/** Top of the ohms range (Ω), above which the meter shows OL. Invented default of a 40 MΩ range. */
+export const OHMS_OVER_LIMIT = 40e6;
+
+/** The node a probe point touches. */
+export function probeNode(c: Circuit, p: ProbePoint): number {
+	if (p === 'earth') return -1;
+	if (p === 'chassis') return c.nodeIndex.get('chassis')!;
+	if ('wire' in p) return c.wireEndNode(p.wire, p.end);
+	return c.terminalNode(p);
+}
+
+const volt = (s: Solution, node: number) => s.at(node);
+
+/**
+ * Nodes that a regulating stabilizer's output reaches through wires, joints, pins, fuses and
+ * closed contacts: a DMM there shows the pulsing of the contacts.
+ */
+function pulsingNodes(s: Solution): Set<number> {
+	const c = s.circuit;
+	const out = new Set<number>();
+	const conductors = new Set(['contact', 'pin', 'fuse']);
+	const adj = new Map<number, number[]>();
+	c.elements.forEach((e, k) => {
+		if (s.g[k] === 0) return;
+		const passes = e.ref.kind === 'wire' || e.ref.kind === 'joint' || (e.ref.kind === 'part' && conductors.has(e.ref.role));
+		if (!passes) return;
+		(adj.get(e.a) ?? adj.set(e.a, []).get(e.a)!).push(e.b);
+		(adj.get(e.b) ?? adj.set(e.b, []).get(e.b)!).push(e.a);
+	});
+	for (const st of c.stabilizers) {
+		if (!s.regulating.get(st.part)) continue;
+		const stack = [st.output];
+		out.add(st.output);
+		while (stack.length) {
+			const v = stack.pop()!;
+			for (const w of adj.get(v) ?? []) if (!out.has(w) && w >= 0) (out.add(w), stack.push(w));
+		}
+	}
+	return out;
+}
+
+export interface VoltsReading {
+	volts: number;
+	/** The reading sits on a pulsing stabilizer output: a DMM fluctuates around this average. */
+	pulsing: boolean;
+	converged: boolean;
+}
+
+/** DC volts at a point against the black lead (default: the battery's earthed post). */
+export function measureVolts(
+	doc: HarnessDocument,
+	scenario: Scenario,
+	point: ProbePoint,
+	{ black = 'earth', inputOhms = DMM_INPUT_OHMS }: { black?: ProbePoint; inputOhms?: number } = {}
+): VoltsReading {
+	const c = buildCircuit(doc, scenario);
+	const a = probeNode(c, point);
+	const b = probeNode(c, black);
+	addElement(c, a, b, inputOhms, 'voltmeter');
+	const s = solveCircuit(c);
+	return { volts: volt(s, a) - volt(s, b), pulsing: pulsingNodes(s).has(a), converged: s.converged };
+}
+
+/** Volt drop from a to b with the circuit working (the meter across the two points). */
+export function measureDrop(doc: HarnessDocument, scenario: Scenario, a: ProbePoint, b: ProbePoint): VoltsReading {
+	return measureVolts(doc, scenario, a, { black: b });
+}
+
+export interface OhmsReading {
+	/** Resistance (Ω); Infinity when over the range. */
+	ohms: number;
+	overLimit: boolean;
+}
+
+/** Resistance between two points with the battery disconnected (and the engine stopped). */
+export function measureOhms(
+	doc: HarnessDocument,
+	scenario: Scenario,
+	a: ProbePoint,
+	b: ProbePoint = 'chassis',
+	{ testCurrent = OHMS_TEST_CURRENT, maxOhms = OHMS_OVER_LIMIT }: { testCurrent?: number; maxOhms?: number } = {}
+): OhmsReading {
+	const batteries = doc.parts.filter((p) => p.kind === 'battery').map((p) => p.id);
+	const unpowered: Scenario = {
+		...scenario,
+		engineRunning: false,
+		disconnected: [...(scenario.disconnected ?? []), ...batteries]
+	};
+	const c = buildCircuit(doc, unpowered);
+	const na = probeNode(c, a);
+	const nb = probeNode(c, b);
+	addCurrentSource(c, na, nb, testCurrent, 'ohmmeter');
+	const s = solveCircuit(c);
+	const ohms = (volt(s, na) - volt(s, nb)) / testCurrent;
+	return ohms > maxOhms ? { ohms: Infinity, overLimit: true } : { ohms, overLimit: false };
+}
+
+export interface LampReading {
+	/** Current through the test lamp (A, magnitude). */
+	current: number;
+	/** Voltage across it (V, magnitude). */
+	volts: number;
+	/** Power in its filament (W). */
+	power: number;
+	/** Power over rated power: 1 = full brightness, about 0 = dark. */
+	brightness: number;
+}
+
+/** A test lamp from a point to earth (default the battery's earthed post). */
+export function testLamp(
+	doc: HarnessDocument,
+	scenario: Scenario,
+	point: ProbePoint,
+	{ watts = 5, volts, to = 'earth' }: { watts?: number; volts?: number; to?: ProbePoint } = {}
+): LampReading {
+	const rated = volts ?? doc.vehicle.systemVoltage;
+	const ohms = lampResistance(rated, watts);
+	const c = buildCircuit(doc, scenario);
+	const a = probeNode(c, point);
+	const b = probeNode(c, to);
+	addElement(c, a, b, ohms, 'test lamp');
+	const s = solveCircuit(c);
+	const v = Math.abs(volt(s, a) - volt(s, b));
+	const power = (v * v) / ohms;
+	return { current: v / ohms, volts: v, power, brightness: power / watts };
+}

@@ -1,0 +1,254 @@
+/**
+ * Sparse symmetric positive-definite matrices: assembly, a fill-reducing ordering and an
+ * LDLᵀ factorisation whose `solve` callers can reuse (one factorisation, many right-hand
+ * sides, as rank-one fault updates need).
+ *
+ * Ordering: minimum degree on the explicit elimination graph (Tinney & Walker's scheme 2,
+ * 1967; George & Liu, "The evolution of the minimum degree ordering algorithm", SIAM Review
+ * 1989). Harness graphs are nearly trees, so the elimination graph stays small.
+ * Factorisation: the up-looking LDLᵀ of T. A. Davis, "Algorithm 849: A concise sparse
+ * Cholesky factorization package", ACM TOMS 31 (2005): the elimination tree gives each row's
+ * pattern, and row k of L is found by a sparse triangular solve.
+ */
+
+/** Symmetric matrix in compressed columns, both triangles stored, diagonal included. */
+export interface SymmetricPattern {
+	n: number;
+	colPtr: Int32Array;
+	rowIdx: Int32Array;
+}
+
+/** Build the pattern from off-diagonal pairs (i, j); the diagonal is always present. */
+export function symmetricPattern(n: number, pairs: ReadonlyArray<readonly [number, number]>): SymmetricPattern {
+	const cols: Set<number>[] = Array.from({ length: n }, (_, i) => new Set([i]));
+	for (const [i, j] of pairs) {
+		if (i < 0 || j < 0 || i === j) continue;
+		if (i >= n || j >= n) throw new Error(`symmetricPattern: entry (${i}, ${j}) outside a ${n}×${n} matrix`);
+		cols[i].add(j);
+		cols[j].add(i);
+	}
+	const colPtr = new Int32Array(n + 1);
+	for (let j = 0; j < n; j++) colPtr[j + 1] = colPtr[j] + cols[j].size;
+	const rowIdx = new Int32Array(colPtr[n]);
+	for (let j = 0; j < n; j++) {
+		const rows = [...cols[j]].sort((a, b) => a - b);
+		rowIdx.set(rows, colPtr[j]);
+	}
+	return { n, colPtr, rowIdx };
+}
+
+/** Position of entry (i, j) in the values array, or −1 if not in the pattern. */
+export function slotOf(p: SymmetricPattern, i: number, j: number): number {
+	let lo = p.colPtr[j];
+	let hi = p.colPtr[j + 1] - 1;
+	while (lo <= hi) {
+		const mid = (lo + hi) >> 1;
+		const r = p.rowIdx[mid];
+		if (r === i) return mid;
+		if (r < i) lo = mid + 1;
+		else hi = mid - 1;
+	}
+	return -1;
+}
+
+/** Minimum-degree ordering: perm[k] = the original index eliminated k-th. Ties go to the lower index. */
+export function minimumDegree(p: SymmetricPattern): Int32Array {
+	const n = p.n;
+	const adj: Set<number>[] = new Array(n);
+	for (let j = 0; j < n; j++) {
+		const s = new Set<number>();
+		for (let q = p.colPtr[j]; q < p.colPtr[j + 1]; q++) if (p.rowIdx[q] !== j) s.add(p.rowIdx[q]);
+		adj[j] = s;
+	}
+	// Binary heap of (degree, index) with lazy deletion.
+	const heapD: number[] = [];
+	const heapV: number[] = [];
+	const push = (d: number, v: number) => {
+		let i = heapD.length;
+		heapD.push(d);
+		heapV.push(v);
+		while (i > 0) {
+			const up = (i - 1) >> 1;
+			if (heapD[up] < d || (heapD[up] === d && heapV[up] < v)) break;
+			heapD[i] = heapD[up];
+			heapV[i] = heapV[up];
+			i = up;
+		}
+		heapD[i] = d;
+		heapV[i] = v;
+	};
+	const pop = () => {
+		const d = heapD[0];
+		const v = heapV[0];
+		const lastD = heapD.pop()!;
+		const lastV = heapV.pop()!;
+		if (heapD.length) {
+			let i = 0;
+			for (;;) {
+				let c = 2 * i + 1;
+				if (c >= heapD.length) break;
+				if (c + 1 < heapD.length && (heapD[c + 1] < heapD[c] || (heapD[c + 1] === heapD[c] && heapV[c + 1] < heapV[c]))) c++;
+				if (heapD[c] > lastD || (heapD[c] === lastD && heapV[c] > lastV)) break;
+				heapD[i] = heapD[c];
+				heapV[i] = heapV[c];
+				i = c;
+			}
+			heapD[i] = lastD;
+			heapV[i] = lastV;
+		}
+		return [d, v] as const;
+	};
+	for (let v = 0; v < n; v++) push(adj[v].size, v);
+	const done = new Uint8Array(n);
+	const perm = new Int32Array(n);
+	let k = 0;
+	while (k < n) {
+		const [d, v] = pop();
+		if (done[v] || d !== adj[v].size) continue;
+		done[v] = 1;
+		perm[k++] = v;
+		const nbrs = [...adj[v]];
+		for (const u of nbrs) adj[u].delete(v);
+		// Eliminating v joins all its neighbours into a clique (the fill).
+		for (let i = 0; i < nbrs.length; i++) {
+			const ai = adj[nbrs[i]];
+			for (let j = i + 1; j < nbrs.length; j++) {
+				if (!ai.has(nbrs[j])) {
+					ai.add(nbrs[j]);
+					adj[nbrs[j]].add(nbrs[i]);
+				}
+			}
+		}
+		for (const u of nbrs) push(adj[u].size, u);
+		adj[v].clear();
+	}
+	return perm;
+}
+
+/** The structure of L for a pattern and an ordering, reusable for many numeric factorisations. */
+export interface Symbolic {
+	pattern: SymmetricPattern;
+	perm: Int32Array;
+	pinv: Int32Array;
+	parent: Int32Array;
+	/** Column pointers of L (strictly lower part). */
+	lp: Int32Array;
+	nnzL: number;
+}
+
+export function analyse(pattern: SymmetricPattern, perm: Int32Array = minimumDegree(pattern)): Symbolic {
+	const n = pattern.n;
+	const pinv = new Int32Array(n);
+	for (let k = 0; k < n; k++) pinv[perm[k]] = k;
+	const parent = new Int32Array(n).fill(-1);
+	const flag = new Int32Array(n).fill(-1);
+	const lnz = new Int32Array(n);
+	for (let k = 0; k < n; k++) {
+		flag[k] = k;
+		const col = perm[k];
+		for (let q = pattern.colPtr[col]; q < pattern.colPtr[col + 1]; q++) {
+			let i = pinv[pattern.rowIdx[q]];
+			if (i >= k) continue;
+			// Walk up the elimination tree from i to the first node already in row k's pattern.
+			for (; flag[i] !== k; i = parent[i]) {
+				if (parent[i] === -1) parent[i] = k;
+				lnz[i]++;
+				flag[i] = k;
+			}
+		}
+	}
+	const lp = new Int32Array(n + 1);
+	for (let k = 0; k < n; k++) lp[k + 1] = lp[k] + lnz[k];
+	return { pattern, perm, pinv, parent, lp, nnzL: lp[n] };
+}
+
+/** A numeric factorisation P A Pᵀ = L D Lᵀ. */
+export interface Factorization {
+	n: number;
+	/** Solve A x = rhs; rhs is left unchanged. */
+	solve(rhs: Float64Array): Float64Array;
+	/** Nonzeros of L below the diagonal. */
+	nnzL: number;
+	/** Pivots raised to the floor (rounding in a floating group of nodes). */
+	raisedPivots: number;
+}
+
+/**
+ * Factorise the matrix with `values` laid out on the symbolic pattern. A pivot below
+ * `pivotFloor` is raised to it: with a leakage g on every node, every exact pivot of
+ * G + g·I is at least g, so only rounding can push one lower.
+ */
+export function factorize(sym: Symbolic, values: Float64Array, pivotFloor = 0): Factorization {
+	const { pattern, perm, pinv, parent, lp } = sym;
+	const n = pattern.n;
+	const li = new Int32Array(sym.nnzL);
+	const lx = new Float64Array(sym.nnzL);
+	const d = new Float64Array(n);
+	const y = new Float64Array(n);
+	const flag = new Int32Array(n);
+	const lnz = new Int32Array(n);
+	const stack = new Int32Array(n);
+	let raised = 0;
+	for (let k = 0; k < n; k++) {
+		y[k] = 0;
+		let top = n;
+		flag[k] = k;
+		lnz[k] = 0;
+		const col = perm[k];
+		for (let q = pattern.colPtr[col]; q < pattern.colPtr[col + 1]; q++) {
+			let i = pinv[pattern.rowIdx[q]];
+			if (i > k) continue;
+			y[i] += values[q];
+			let len = 0;
+			for (; flag[i] !== k; i = parent[i]) {
+				stack[len++] = i;
+				flag[i] = k;
+			}
+			while (len > 0) stack[--top] = stack[--len];
+		}
+		// Row k of L by a sparse triangular solve in topological order.
+		let dk = y[k];
+		y[k] = 0;
+		for (; top < n; top++) {
+			const i = stack[top];
+			const yi = y[i];
+			y[i] = 0;
+			const end = lp[i] + lnz[i];
+			for (let p = lp[i]; p < end; p++) y[li[p]] -= lx[p] * yi;
+			const lki = yi / d[i];
+			dk -= lki * yi;
+			li[end] = k;
+			lx[end] = lki;
+			lnz[i]++;
+		}
+		if (!(dk > pivotFloor)) {
+			if (pivotFloor > 0 && Number.isFinite(dk)) {
+				dk = pivotFloor;
+				raised++;
+			} else {
+				throw new Error(`factorize: pivot ${dk} at step ${k} (row ${perm[k]}): the matrix is not positive definite`);
+			}
+		}
+		d[k] = dk;
+	}
+	const solve = (rhs: Float64Array) => {
+		if (rhs.length !== n) throw new Error(`solve: right-hand side has ${rhs.length} entries, the matrix ${n}`);
+		const x = new Float64Array(n);
+		for (let k = 0; k < n; k++) x[k] = rhs[perm[k]];
+		for (let j = 0; j < n; j++) {
+			const xj = x[j];
+			if (xj === 0) continue;
+			for (let p = lp[j]; p < lp[j + 1]; p++) x[li[p]] -= lx[p] * xj;
+		}
+		for (let k = 0; k < n; k++) x[k] /= d[k];
+		for (let j = n - 1; j >= 0; j--) {
+			let s = x[j];
+			for (let p = lp[j]; p < lp[j + 1]; p++) s -= lx[p] * x[li[p]];
+			x[j] = s;
+		}
+		const out = new Float64Array(n);
+		for (let k = 0; k < n; k++) out[perm[k]] = x[k];
+		return out;
+	};
+	return { n, solve, nnzL: sym.nnzL, raisedPivots: raised };
+}
