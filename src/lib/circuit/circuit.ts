@@ -237,9 +237,10 @@ export function buildCircuit(doc: HarnessDocument, scenario: Scenario, options: 
 				break;
 			case 'stabilizer': {
 				const p = resolveParams('stabilizer', part.params, vehicle);
-				// Starts with its contacts closed (input to output); solve() regulates it.
+				// Starts with its contacts closed (input to output); solve() regulates it. The bimetal
+				// heater sits behind the contacts (output to earth), so the output always has a load.
 				const e = el('in', 'out', p.outputResistance, 'regulator');
-				el('in', 'earth', p.heaterResistance, 'heater');
+				el('out', 'earth', p.heaterResistance, 'heater');
 				stabilizers.push({ part: part.id, input: t('in'), output: t('out'), earth: t('earth'), element: e, setPoint: p.setPoint, gMax: 1 / p.outputResistance });
 				break;
 			}

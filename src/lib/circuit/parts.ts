@@ -124,7 +124,7 @@ export const PARAM_SCHEMAS = {
 		setPoint: volts(),
 		/** Resistance from input to output with the contacts closed (Ω). Invented default. */
 		outputResistance: ohms(0.2),
-		/** Bimetal heater, input to earth (Ω). Invented default. */
+		/** Bimetal heater, behind the contacts: output to earth (Ω). Invented default. */
 		heaterResistance: ohms(40)
 	}),
 	resistor: z.object({
