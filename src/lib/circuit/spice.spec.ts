@@ -4,6 +4,8 @@ import { solveCircuit } from './solve';
 import { parseSpiceRaw, toSpice } from './spice';
 import { generateHarness } from './testing/generate';
 import { runOperatingPoints } from './testing/ngspice';
+import { demoHarness, withOppositeEarth } from './demo';
+import { defaultScenario } from './scenario';
 import type { HarnessDocument } from './schema';
 import type { Scenario } from './scenario';
 
@@ -51,6 +53,27 @@ describe('DC solve against ngspice (independent SPICE simulator, Debian package 
 		expect(nodes).toBeGreaterThan(20000);
 		expect(live).toBeGreaterThan(5000); // plenty of nodes carry real voltages, not just floating zeros
 	}, 120_000);
+
+	it('agrees on every node of the demo harness, both polarities, in several scenarios', () => {
+		const cases = [];
+		for (const doc of [demoHarness(), withOppositeEarth(demoHarness())]) {
+			const base = defaultScenario(doc);
+			const variants: [string, Scenario][] = [
+				['default', base],
+				['ignition off', { ...base, switches: { ...base.switches, ignition: 'off' } }],
+				['head lamps main', { ...base, switches: { ...base.switches, 'light-switch': 'head', 'dip-switch': 'main' } }],
+				['starting', { ...base, switches: { ...base.switches, ignition: 'start' } }],
+				['horn, wiper, brakes', { ...base, switches: { ...base.switches, 'horn-push': 'pressed', 'wiper-switch': 'on', 'brake-switch': 'pressed' } }],
+				['running', { ...base, engineRunning: true, switches: { ...base.switches, 'oil-switch': 'pressure' } }],
+				['stabilizer earth off', { ...base, disconnected: ['w-stab-earth'] }],
+				['tank unplugged', { ...base, disconnected: ['rear-plug'] }]
+			];
+			for (const [name, scenario] of variants) cases.push({ doc, scenario, name: `demo ${doc.vehicle.earth} earth, ${name}` });
+		}
+		const { bad, nodes } = compare(cases);
+		expect(bad).toEqual([]);
+		expect(nodes).toBeGreaterThan(16 * 200);
+	}, 60_000);
 
 	it('parses an ngspice ASCII raw file', () => {
 		const raw = [

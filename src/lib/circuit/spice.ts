@@ -36,16 +36,17 @@ export function toSpice(c: Circuit, options: SpiceOptions = {}): SpiceDeck {
 	const name = (i: number) => (i < 0 ? '0' : nodes[i]);
 	const title = (options.title ?? 'loomwright circuit').replace(/[\r\n]+/g, ' ');
 	const lines: string[] = [title];
-	const thevenin = new Map<number, { emf: number }>();
-	for (const s of c.sources) if (s.element !== undefined) thevenin.set(s.element, { emf: s.emf ?? 0 });
+	const thevenin = new Map<number, { a: number; b: number; emf: number }>();
+	for (const s of c.sources) if (s.element !== undefined) thevenin.set(s.element, { a: s.a, b: s.b, emf: s.emf ?? 0 });
 	c.elements.forEach((e, k) => {
 		const gk = g[k];
 		if (!(gk > 0) || e.a === e.b) return;
 		const src = thevenin.get(k);
 		if (src) {
-			// V(a) − V(b) = emf with the element's resistance in series: a —R— m —V— b.
-			lines.push(`R${k} ${name(e.a)} m${k} ${num(1 / gk)}`);
-			lines.push(`V${k} m${k} ${name(e.b)} DC ${num(src.emf)}`);
+			// V(a) − V(b) = emf with the element's resistance in series: a —R— m —V— b
+			// (the source's own orientation, which may run against the element's).
+			lines.push(`R${k} ${name(src.a)} m${k} ${num(1 / gk)}`);
+			lines.push(`V${k} m${k} ${name(src.b)} DC ${num(src.emf)}`);
 		} else {
 			lines.push(`R${k} ${name(e.a)} ${name(e.b)} ${num(1 / gk)}`);
 		}
