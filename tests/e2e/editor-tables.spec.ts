@@ -1,0 +1,61 @@
+import { expect, test } from '@playwright/test';
+import { newDiagram, signIn, waitSaved, documentOf } from './editor-helpers';
+
+// Screen colours from the trade-letter palette's data (src/lib/circuit/palettes.ts):
+// R red #d32f2f, W white #f5f5f5, G green #2e7d32, B black #1a1a1a.
+const doc = {
+	schemaVersion: 1,
+	vehicle: { systemVoltage: 12, earth: 'negative' },
+	palette: 'trade-letters',
+	parts: [
+		{ id: 'sw', key: '7', label: 'Panel switch', kind: 'switch', terminals: ['1', '2'], params: { positions: [{ name: 'off', closed: [] }, { name: 'on', closed: [['1', '2']] }] }, position: { x: 0, y: 0 } },
+		{ id: 'lamp', key: '12', label: 'Panel lamp', kind: 'lamp', position: { x: 320, y: 60 } },
+		{ id: 'earth', key: '3', label: 'Dash earth', kind: 'earth-point', position: { x: 560, y: 200 } }
+	],
+	wires: [
+		{ id: 'w1', from: { part: 'sw', terminal: '2' }, to: { part: 'lamp', terminal: 'feed' }, code: 'G/B', size: { mm2: 1 }, lengthM: 0.8 },
+		{ id: 'w2', from: { part: 'lamp', terminal: 'earth' }, to: { part: 'earth', terminal: 'stud' }, code: 'B', size: { mm2: 1 }, lengthM: 0.3 }
+	]
+};
+
+test('editing a code in the wire list changes the drawn stripe', async ({ page }) => {
+	await signIn(page);
+	const id = await newDiagram(page.request, 'Table test loom', doc);
+	await page.goto(`/diagrams/${id}/draw`);
+	const drawn = page.locator('[data-wire-id="w1"]');
+	await expect(drawn.locator('[data-role="base"]')).toHaveAttribute('stroke', '#2e7d32');
+
+	await page.getByRole('button', { name: 'Wire list' }).click();
+	const table = page.getByRole('table', { name: 'Wire list' });
+	await expect(table.locator('tbody tr')).toHaveCount(2);
+
+	// Filter to one code: only the G/B wire is listed.
+	await page.getByLabel('Show wires of code').selectOption('G/B');
+	await expect(table.locator('tbody tr')).toHaveCount(1);
+
+	const cell = table.getByRole('textbox', { name: 'Code of wire G/B from 7 2 to 12 feed' });
+	await cell.fill('r/w');
+	await cell.press('Enter');
+	await expect(drawn).toHaveAttribute('data-code', 'R/W');
+	await expect(drawn.locator('[data-role="base"]')).toHaveAttribute('stroke', '#d32f2f');
+	await expect(drawn.locator('[data-role="tracer"]')).toHaveAttribute('stroke', '#f5f5f5');
+
+	// Sort the component key by key number: manual order 3, 7, 12 (not 12, 3, 7).
+	await page.getByRole('button', { name: 'Component key' }).click();
+	const key = page.getByRole('table', { name: 'Component key' });
+	await expect(key.locator('tbody tr td:first-child input')).toHaveValues(['3', '7', '12']);
+	await key.getByRole('textbox', { name: 'Label of part 12' }).fill('Speedometer lamp');
+	await key.getByRole('textbox', { name: 'Label of part 12' }).press('Enter');
+	await expect(page.locator('[data-part-id="lamp"] .label')).toHaveText('Speedometer lamp');
+
+	// One history: undo the label, then the code.
+	await page.getByRole('button', { name: /^Undo/ }).click();
+	await expect(page.locator('[data-part-id="lamp"] .label')).toHaveText('Panel lamp');
+	await page.getByRole('button', { name: /^Undo/ }).click();
+	await expect(drawn.locator('[data-role="base"]')).toHaveAttribute('stroke', '#2e7d32');
+	await page.getByRole('button', { name: /^Redo/ }).click();
+	await expect(drawn).toHaveAttribute('data-code', 'R/W');
+	await waitSaved(page);
+	expect((await documentOf(page.request, id)).document.wires.map((w) => w.code)).toEqual(['R/W', 'B']);
+	await page.screenshot({ path: '.data/test/editor-tables.png' });
+});
