@@ -1,6 +1,13 @@
 // Puts the signed-in account and its session on event.locals, and nothing else of note.
 import { redirect, type Handle, type HandleServerError } from '@sveltejs/kit';
 import * as session from '$lib/server/auth/session';
+import { close } from '$lib/server/db';
+
+// adapter-node stops taking requests on SIGTERM/SIGINT, then emits this; the idle database pool
+// would otherwise keep the process alive for ever.
+process.on('sveltekit:shutdown', () => {
+	void close();
+});
 
 export const handle: Handle = async ({ event, resolve }) => {
 	const { user, session: current } = await session.read(event.cookies);

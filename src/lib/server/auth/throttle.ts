@@ -43,7 +43,9 @@ export async function check(keys: ThrottleKey[], now = new Date()): Promise<Thro
 /** Counts one failure on every key; a window older than its policy's starts again at one. */
 export async function recordFailure(keys: ThrottleKey[], now = new Date()): Promise<void> {
 	for (const { key, policy } of keys) {
-		const windowStart = new Date(now.getTime() - policy.windowSeconds * 1000);
+		// Raw values in sql`` go to the driver as they are: pass times as ISO text, cast in SQL.
+		const windowStart = sql`${new Date(now.getTime() - policy.windowSeconds * 1000).toISOString()}::timestamptz`;
+		const nowSql = sql`${now.toISOString()}::timestamptz`;
 		// One statement, so concurrent failures on two app servers both count.
 		await db
 			.insert(signInThrottle)
@@ -52,7 +54,7 @@ export async function recordFailure(keys: ThrottleKey[], now = new Date()): Prom
 				target: signInThrottle.key,
 				set: {
 					failures: sql`case when ${signInThrottle.windowStartedAt} <= ${windowStart} then 1 else ${signInThrottle.failures} + 1 end`,
-					windowStartedAt: sql`case when ${signInThrottle.windowStartedAt} <= ${windowStart} then ${now} else ${signInThrottle.windowStartedAt} end`,
+					windowStartedAt: sql`case when ${signInThrottle.windowStartedAt} <= ${windowStart} then ${nowSql} else ${signInThrottle.windowStartedAt} end`,
 					lastFailureAt: now
 				}
 			});
