@@ -22,6 +22,34 @@ describe('validateDocument', () => {
 	});
 });
 
+describe('validateDocument through the circuit core', () => {
+	it('names the path of a bad part and a bad vehicle fact', () => {
+		const r = validateDocument({
+			schemaVersion: 1,
+			vehicle: { systemVoltage: 9, earth: 'positive' },
+			parts: [{ id: 'p1', key: '1', kind: 'flux-capacitor' }],
+			wires: []
+		});
+		expect(r.ok).toBe(false);
+		if (!r.ok) {
+			const paths = r.errors.map((e) => e.path);
+			expect(paths).toContain('vehicle.systemVoltage');
+			expect(paths.some((p) => p.startsWith('parts[0]'))).toBe(true);
+		}
+	});
+
+	it('accepts a one-lamp document and fills the defaults', () => {
+		const r = validateDocument({
+			schemaVersion: 1,
+			vehicle: { systemVoltage: 12, earth: 'negative' },
+			parts: [{ id: 'lamp1', key: '14', kind: 'lamp' }],
+			wires: []
+		});
+		expect(r.ok).toBe(true);
+		if (r.ok) expect(summarise(r.doc)).toMatchObject({ parts: 1, wires: 0, kinds: [['lamp', 1]] });
+	});
+});
+
 describe('summarise', () => {
 	it('counts parts by kind and wires, by hand: 3 lamps, 1 fuse, 2 wires', () => {
 		const doc = {

@@ -3,35 +3,22 @@
 //
 // >>> CIRCUIT CORE PLUG-IN POINT <<<
 // `validateDocument` and `newDocument` are the only places the server decides what a valid
-// document is. When src/lib/circuit/schema.ts exports `parseDocument` and `emptyDocument`, call
-// them here and nowhere else; until then a document must be a JSON object whose `parts` and
-// `wires`, where present, are lists.
-import { z } from 'zod';
-import { fromZod, type Issue } from './issues';
+// document is; both hand over to the circuit core's schema (src/lib/circuit/schema.ts).
+// Relative import: the seed script runs outside Vite, where `$lib` does not resolve.
+import { emptyDocument, parseDocument, type HarnessDocument } from '../circuit/schema';
+import type { Issue } from './issues';
 
+/** What the database stores: any JSON object (old rows are read without trusting them). */
 export type DiagramDocument = Record<string, unknown>;
 
-export type DocumentResult = { ok: true; doc: DiagramDocument } | { ok: false, errors: Issue[] };
+export type DocumentResult = { ok: true; doc: HarnessDocument } | { ok: false; errors: Issue[] };
 
-const interimDocument = z.looseObject({
-	schemaVersion: z.number().int().positive().optional(),
-	vehicle: z
-		.looseObject({
-			systemVoltage: z.union([z.literal(6), z.literal(12), z.literal(24)]).optional(),
-			earth: z.enum(['negative', 'positive']).optional()
-		})
-		.optional(),
-	parts: z.array(z.unknown()).optional(),
-	wires: z.array(z.unknown()).optional()
-});
-
+/** Parses a document (with its defaults filled in) or returns every problem with its path. */
 export function validateDocument(json: unknown): DocumentResult {
-	if (typeof json !== 'object' || json === null || Array.isArray(json)) {
-		return { ok: false, errors: [{ path: '', message: 'A diagram document must be a JSON object.' }] };
-	}
-	const parsed = interimDocument.safeParse(json);
-	if (!parsed.success) return { ok: false, errors: fromZod(parsed.error) };
-	return { ok: true, doc: parsed.data };
+	const parsed = parseDocument(json);
+	if (parsed.ok) return { ok: true, doc: parsed.document };
+	// The core names the whole document "(document)"; the API's paths use "" for the whole value.
+	return { ok: false, errors: parsed.errors.map((e) => ({ path: e.path === '(document)' ? '' : e.path, message: e.message })) };
 }
 
 export interface VehicleFacts {
@@ -40,13 +27,9 @@ export interface VehicleFacts {
 }
 
 /** An empty document carrying the vehicle's system voltage and earth polarity. */
-export function newDocument(vehicle: VehicleFacts): DiagramDocument {
-	return {
-		schemaVersion: 1,
-		vehicle: { systemVoltage: vehicle.systemVoltage, earth: vehicle.earthPolarity },
-		parts: [],
-		wires: []
-	};
+export function newDocument(vehicle: VehicleFacts): HarnessDocument {
+	const systemVoltage = vehicle.systemVoltage as 6 | 12 | 24; // the vehicles table's check allows only these
+	return emptyDocument({ systemVoltage, earth: vehicle.earthPolarity });
 }
 // >>> END OF PLUG-IN POINT <<<
 
