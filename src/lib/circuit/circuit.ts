@@ -10,7 +10,7 @@
  * scenario (an open switch contact, a blown fuse, an unplugged joint) are kept with g = 0,
  * so the matrix pattern is the same for every scenario of a document.
  */
-import { CHASSIS, listNodes, nodeOfTerminal } from './nets';
+import { CHASSIS, nodeOfTerminal } from './nets';
 import {
 	earthedTerminal,
 	lampResistance,
@@ -103,7 +103,8 @@ export interface StabilizerDevice {
 export interface Circuit {
 	doc: HarnessDocument;
 	nodeNames: string[];
-	nodeIndex: Map<string, number>;
+	/** Node names to indices, the reference at −1 (built on first use). */
+	readonly nodeIndex: Map<string, number>;
 	/** Name of the reference node (the main battery's earthed terminal, or the chassis). */
 	reference: string;
 	elements: Element[];
@@ -136,29 +137,61 @@ export function buildCircuit(doc: HarnessDocument, scenario: Scenario, options: 
 	const battery = doc.parts.find((p) => p.kind === 'battery');
 	const reference = battery ? nodeOfTerminal(battery, earthedTerminal(vehicle.earth)) : CHASSIS;
 
+	// Nodes are numbered without string look-ups (big harnesses build in a millisecond or
+	// two): each part's terminals in order (a splice is one node), the chassis, then two
+	// ends per wire. The reference takes no number (−1); the numbers after it close up.
+	const parts = new Map<string, Part>();
+	const base = new Map<string, number>();
 	const nodeNames: string[] = [];
-	const nodeIndex = new Map<string, number>();
-	const addNode = (name: string) => {
-		nodeIndex.set(name, name === reference ? -1 : nodeNames.length);
-		if (name !== reference) nodeNames.push(name);
-	};
-	for (const n of listNodes(doc)) addNode(n.id);
-	for (const w of doc.wires) {
-		addNode(wireEnd(w.id, 'from'));
-		addNode(wireEnd(w.id, 'to'));
+	let raw = 0;
+	let refRaw = -1;
+	const earthedName = battery ? earthedTerminal(vehicle.earth) : '';
+	for (const p of doc.parts) {
+		parts.set(p.id, p);
+		base.set(p.id, raw);
+		if (p.kind === 'splice') {
+			nodeNames.push(p.id);
+			raw++;
+		} else {
+			for (const t of p.terminals) {
+				if (battery && p.id === battery.id && t === earthedName) refRaw = raw;
+				nodeNames.push(`${p.id}:${t}`);
+				raw++;
+			}
+		}
 	}
-	const parts = new Map(doc.parts.map((p) => [p.id, p]));
+	const chassisRaw = raw++;
+	nodeNames.push(CHASSIS);
+	if (refRaw < 0) refRaw = chassisRaw;
+	const wireBase = raw;
+	const wireIndex = new Map<string, number>();
+	doc.wires.forEach((w, i) => {
+		wireIndex.set(w.id, i);
+		nodeNames.push(wireEnd(w.id, 'from'), wireEnd(w.id, 'to'));
+	});
+	nodeNames.splice(refRaw, 1);
+	const fromRaw = (r: number) => (r < refRaw ? r : r === refRaw ? -1 : r - 1);
+	const rawOf = (p: Part, terminal: string) => base.get(p.id)! + (p.kind === 'splice' ? 0 : p.terminals.indexOf(terminal));
+	const chassisNode = fromRaw(chassisRaw);
+	let nodeIndexCache: Map<string, number> | null = null;
+	const nodeIndexOf = () => {
+		if (!nodeIndexCache) {
+			nodeIndexCache = new Map(nodeNames.map((name, i) => [name, i]));
+			nodeIndexCache.set(reference, -1);
+		}
+		return nodeIndexCache;
+	};
 	const terminalNode = (ref: TerminalRef) => {
 		const part = parts.get(ref.part);
 		if (!part || !part.terminals.includes(ref.terminal)) {
 			throw new Error(`circuit: no terminal "${ref.terminal}" on part "${ref.part}"`);
 		}
-		return nodeIndex.get(nodeOfTerminal(part, ref.terminal))!;
+		return fromRaw(rawOf(part, ref.terminal));
 	};
 	const wireEndNode = (wire: string, end: 'from' | 'to') => {
-		const i = nodeIndex.get(wireEnd(wire, end));
+		const i = wireIndex.get(wire);
 		if (i === undefined) throw new Error(`circuit: no wire "${wire}"`);
-		return i;
+		return fromRaw(wireBase + 2 * i + (end === 'to' ? 1 : 0));
 	};
 
 	const elements: Element[] = [];
@@ -170,11 +203,14 @@ export function buildCircuit(doc: HarnessDocument, scenario: Scenario, options: 
 		return elements.length - 1;
 	};
 
-	for (const part of doc.parts) {
-		const off = view.partOff(part.id);
-		const t = (name: string) => terminalNode({ part: part.id, terminal: name });
-		const el = (a: string, b: string, ohms: number, role: ElementRole, closed = true) =>
-			add(t(a), t(b), 1 / ohms, closed && !off, { kind: 'part', part: part.id, role, terminals: [a, b] });
+	// Per-part helpers, defined once (not per part) to keep building cheap on big harnesses.
+	let part: Part = doc.parts[0];
+	let off = false;
+	const t = (name: string) => fromRaw(rawOf(part, name));
+	const el = (a: string, b: string, ohms: number, role: ElementRole, closed = true) =>
+		add(t(a), t(b), 1 / ohms, closed && !off, { kind: 'part', part: part.id, role, terminals: [a, b] });
+	for (part of doc.parts) {
+		off = view.partOff(part.id);
 		switch (part.kind) {
 			case 'battery': {
 				const p = resolveParams('battery', part.params, vehicle);
@@ -194,7 +230,7 @@ export function buildCircuit(doc: HarnessDocument, scenario: Scenario, options: 
 				break;
 			}
 			case 'earth-point': {
-				const chassis = nodeIndex.get(CHASSIS)!;
+				const chassis = chassisNode;
 				add(t('stud'), chassis, 1 / part.params.resistance, !off, { kind: 'part', part: part.id, role: 'earth', terminals: ['stud'] });
 				break;
 			}
@@ -203,14 +239,14 @@ export function buildCircuit(doc: HarnessDocument, scenario: Scenario, options: 
 				break;
 			case 'switch': {
 				const closed = view.position(part).closed;
-				const isClosed = (a: string, b: string) => closed.some(([x, y]) => (x === a && y === b) || (x === b && y === a));
 				const seen = new Set<string>();
 				for (const pos of part.params.positions) {
 					for (const [a, b] of pos.closed) {
-						const key = [a, b].sort().join('\u0000');
+						const key = a < b ? `${a}\u0000${b}` : `${b}\u0000${a}`;
 						if (seen.has(key)) continue;
 						seen.add(key);
-						el(a, b, part.params.contactResistance, 'contact', isClosed(a, b));
+						const on = closed.some(([x, y]) => (x === a && y === b) || (x === b && y === a));
+						el(a, b, part.params.contactResistance, 'contact', on);
 					}
 				}
 				break;
@@ -266,17 +302,33 @@ export function buildCircuit(doc: HarnessDocument, scenario: Scenario, options: 
 		}
 	}
 
-	for (const w of doc.wires) {
-		const from = wireEndNode(w.id, 'from');
-		const to = wireEndNode(w.id, 'to');
+	const partNode = (ref: TerminalRef) => fromRaw(rawOf(parts.get(ref.part)!, ref.terminal));
+	doc.wires.forEach((w, i) => {
+		const from = fromRaw(wireBase + 2 * i);
+		const to = fromRaw(wireBase + 2 * i + 1);
 		const cut = view.wireOff(w.id);
-		add(terminalNode(w.from), from, 1 / JOINT_RESISTANCE, !cut && !view.terminalOff(w.from), { kind: 'joint', wire: w.id, end: 'from' });
+		add(partNode(w.from), from, 1 / JOINT_RESISTANCE, !cut && !view.terminalOff(w.from), { kind: 'joint', wire: w.id, end: 'from' });
 		const r = Math.max(MIN_WIRE_RESISTANCE, wireResistance({ size: w.size, lengthM: w.lengthM, temperatureC: options.temperatureC }));
 		add(from, to, 1 / r, true, { kind: 'wire', wire: w.id });
-		add(to, terminalNode(w.to), 1 / JOINT_RESISTANCE, !cut && !view.terminalOff(w.to), { kind: 'joint', wire: w.id, end: 'to' });
-	}
+		add(to, partNode(w.to), 1 / JOINT_RESISTANCE, !cut && !view.terminalOff(w.to), { kind: 'joint', wire: w.id, end: 'to' });
+	});
 
-	return { doc, nodeNames, nodeIndex, reference, elements, sources, relays, stabilizers, gmin: GMIN, polarity, terminalNode, wireEndNode };
+	return {
+		doc,
+		nodeNames,
+		get nodeIndex() {
+			return nodeIndexOf();
+		},
+		reference,
+		elements,
+		sources,
+		relays,
+		stabilizers,
+		gmin: GMIN,
+		polarity,
+		terminalNode,
+		wireEndNode
+	};
 }
 
 /** Add an element (a meter, a test lamp) to a built circuit; returns its index. */

@@ -110,7 +110,7 @@ export function viewScenario(doc: HarnessDocument, scenario: Scenario): Scenario
 		},
 		partOff: (id) => off.has(id),
 		wireOff: (id) => off.has(id),
-		terminalOff: (ref) => off.has(ref.part) || terminals.has(`${ref.part}:${ref.terminal}`),
+		terminalOff: (ref) => off.has(ref.part) || (terminals.size > 0 && terminals.has(`${ref.part}:${ref.terminal}`)),
 		engineRunning: scenario.engineRunning ?? false
 	};
 }

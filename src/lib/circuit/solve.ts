@@ -55,7 +55,43 @@ interface Stamp {
 	ba: Int32Array;
 }
 
+/**
+ * Plans of recently seen circuit structures. Every scenario of a document has the same
+ * elements (open ones kept at g = 0), so the ordering and symbolic analysis are reused;
+ * a hit is checked against the full list of element ends, so a stale plan is never used.
+ */
+const plans: { n: number; ends: Int32Array; stamp: Stamp }[] = [];
+const PLAN_CACHE = 8;
+
+/** Forget the cached plans (for timing a cold solve). */
+export function clearPlanCache(): void {
+	plans.length = 0;
+}
+
 function plan(c: Circuit): Stamp {
+	const n = c.nodeNames.length;
+	const ends = new Int32Array(2 * c.elements.length);
+	c.elements.forEach((e, k) => {
+		ends[2 * k] = e.a;
+		ends[2 * k + 1] = e.b;
+	});
+	for (let i = 0; i < plans.length; i++) {
+		const p = plans[i];
+		if (p.n !== n || p.ends.length !== ends.length) continue;
+		let same = true;
+		for (let k = 0; k < ends.length && same; k++) same = p.ends[k] === ends[k];
+		if (same) {
+			if (i > 0) plans.unshift(...plans.splice(i, 1));
+			return p.stamp;
+		}
+	}
+	const stamp = freshPlan(c);
+	plans.unshift({ n, ends, stamp });
+	if (plans.length > PLAN_CACHE) plans.pop();
+	return stamp;
+}
+
+function freshPlan(c: Circuit): Stamp {
 	const n = c.nodeNames.length;
 	const pairs: [number, number][] = c.elements.map((e) => [e.a, e.b]);
 	const pattern = symmetricPattern(n, pairs);

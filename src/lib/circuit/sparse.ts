@@ -18,23 +18,36 @@ export interface SymmetricPattern {
 	rowIdx: Int32Array;
 }
 
-/** Build the pattern from off-diagonal pairs (i, j); the diagonal is always present. */
+/** Build the pattern from off-diagonal pairs (i, j); the diagonal is always present. Negative indices are skipped. */
 export function symmetricPattern(n: number, pairs: ReadonlyArray<readonly [number, number]>): SymmetricPattern {
-	const cols: Set<number>[] = Array.from({ length: n }, (_, i) => new Set([i]));
+	// Count, place both directions plus the diagonal by column, then sort and de-duplicate each column.
+	const count = new Int32Array(n + 1);
+	for (let j = 0; j < n; j++) count[j + 1] = 1;
 	for (const [i, j] of pairs) {
 		if (i < 0 || j < 0 || i === j) continue;
 		if (i >= n || j >= n) throw new Error(`symmetricPattern: entry (${i}, ${j}) outside a ${n}×${n} matrix`);
-		cols[i].add(j);
-		cols[j].add(i);
+		count[i + 1]++;
+		count[j + 1]++;
+	}
+	for (let j = 0; j < n; j++) count[j + 1] += count[j];
+	const fill = count.slice(0, n);
+	const rows = new Int32Array(count[n]);
+	for (let j = 0; j < n; j++) rows[fill[j]++] = j;
+	for (const [i, j] of pairs) {
+		if (i < 0 || j < 0 || i === j) continue;
+		rows[fill[j]++] = i;
+		rows[fill[i]++] = j;
 	}
 	const colPtr = new Int32Array(n + 1);
-	for (let j = 0; j < n; j++) colPtr[j + 1] = colPtr[j] + cols[j].size;
-	const rowIdx = new Int32Array(colPtr[n]);
+	const out = new Int32Array(count[n]);
+	let q = 0;
 	for (let j = 0; j < n; j++) {
-		const rows = [...cols[j]].sort((a, b) => a - b);
-		rowIdx.set(rows, colPtr[j]);
+		const col = rows.subarray(count[j], count[j + 1]).sort();
+		colPtr[j] = q;
+		for (let k = 0; k < col.length; k++) if (k === 0 || col[k] !== col[k - 1]) out[q++] = col[k];
 	}
-	return { n, colPtr, rowIdx };
+	colPtr[n] = q;
+	return { n, colPtr, rowIdx: out.slice(0, q) };
 }
 
 /** Position of entry (i, j) in the values array, or −1 if not in the pattern. */
@@ -54,75 +67,99 @@ export function slotOf(p: SymmetricPattern, i: number, j: number): number {
 /** Minimum-degree ordering: perm[k] = the original index eliminated k-th. Ties go to the lower index. */
 export function minimumDegree(p: SymmetricPattern): Int32Array {
 	const n = p.n;
-	const adj: Set<number>[] = new Array(n);
+	const adj: number[][] = new Array(n);
 	for (let j = 0; j < n; j++) {
-		const s = new Set<number>();
-		for (let q = p.colPtr[j]; q < p.colPtr[j + 1]; q++) if (p.rowIdx[q] !== j) s.add(p.rowIdx[q]);
-		adj[j] = s;
+		const a: number[] = [];
+		for (let q = p.colPtr[j]; q < p.colPtr[j + 1]; q++) if (p.rowIdx[q] !== j) a.push(p.rowIdx[q]);
+		adj[j] = a;
 	}
-	// Binary heap of (degree, index) with lazy deletion.
-	const heapD: number[] = [];
-	const heapV: number[] = [];
-	const push = (d: number, v: number) => {
-		let i = heapD.length;
-		heapD.push(d);
-		heapV.push(v);
-		while (i > 0) {
-			const up = (i - 1) >> 1;
-			if (heapD[up] < d || (heapD[up] === d && heapV[up] < v)) break;
-			heapD[i] = heapD[up];
-			heapV[i] = heapV[up];
-			i = up;
-		}
-		heapD[i] = d;
-		heapV[i] = v;
-	};
-	const pop = () => {
-		const d = heapD[0];
-		const v = heapV[0];
-		const lastD = heapD.pop()!;
-		const lastV = heapV.pop()!;
-		if (heapD.length) {
-			let i = 0;
-			for (;;) {
-				let c = 2 * i + 1;
-				if (c >= heapD.length) break;
-				if (c + 1 < heapD.length && (heapD[c + 1] < heapD[c] || (heapD[c + 1] === heapD[c] && heapV[c + 1] < heapV[c]))) c++;
-				if (heapD[c] > lastD || (heapD[c] === lastD && heapV[c] > lastV)) break;
-				heapD[i] = heapD[c];
-				heapV[i] = heapV[c];
-				i = c;
-			}
-			heapD[i] = lastD;
-			heapV[i] = lastV;
-		}
-		return [d, v] as const;
-	};
-	for (let v = 0; v < n; v++) push(adj[v].size, v);
+	const heap = new MinHeap(n);
+	for (let v = 0; v < n; v++) heap.push(adj[v].length, v);
 	const done = new Uint8Array(n);
+	const mark = new Int32Array(n).fill(-1);
 	const perm = new Int32Array(n);
 	let k = 0;
+	let stamp = 0;
 	while (k < n) {
-		const [d, v] = pop();
-		if (done[v] || d !== adj[v].size) continue;
+		const v = heap.pop();
+		if (done[v] || heap.lastKey !== adj[v].length) continue;
 		done[v] = 1;
 		perm[k++] = v;
-		const nbrs = [...adj[v]];
-		for (const u of nbrs) adj[u].delete(v);
-		// Eliminating v joins all its neighbours into a clique (the fill).
-		for (let i = 0; i < nbrs.length; i++) {
-			const ai = adj[nbrs[i]];
-			for (let j = i + 1; j < nbrs.length; j++) {
-				if (!ai.has(nbrs[j])) {
-					ai.add(nbrs[j]);
-					adj[nbrs[j]].add(nbrs[i]);
-				}
+		const nbrs = adj[v];
+		// Eliminating v joins its neighbours into a clique (the fill): each neighbour's list
+		// becomes its old list plus v's other neighbours, without v and without repeats.
+		for (const u of nbrs) {
+			stamp++;
+			const next: number[] = [];
+			mark[u] = stamp;
+			for (const w of adj[u]) {
+				if (w === v || done[w] || mark[w] === stamp) continue;
+				mark[w] = stamp;
+				next.push(w);
 			}
+			for (const w of nbrs) {
+				if (mark[w] === stamp) continue;
+				mark[w] = stamp;
+				next.push(w);
+			}
+			adj[u] = next;
+			heap.push(next.length, u);
 		}
-		for (const u of nbrs) push(adj[u].size, u);
-		adj[v].clear();
+		adj[v] = [];
 	}
 	return perm;
+}
+
+/** Binary heap of (key, index) pairs, smallest key first, ties to the smaller index; lazy deletion by the caller. */
+class MinHeap {
+	private keys: number[] = [];
+	private vals: number[] = [];
+	lastKey = -1;
+	constructor(capacity: number) {
+		this.keys = new Array(0);
+		this.vals = new Array(0);
+		void capacity;
+	}
+	private less(i: number, j: number) {
+		return this.keys[i] < this.keys[j] || (this.keys[i] === this.keys[j] && this.vals[i] < this.vals[j]);
+	}
+	push(key: number, val: number) {
+		const { keys, vals } = this;
+		let i = keys.length;
+		keys.push(key);
+		vals.push(val);
+		while (i > 0) {
+			const up = (i - 1) >> 1;
+			if (!this.less(i, up)) break;
+			[keys[i], keys[up]] = [keys[up], keys[i]];
+			[vals[i], vals[up]] = [vals[up], vals[i]];
+			i = up;
+		}
+	}
+	pop(): number {
+		const { keys, vals } = this;
+		const top = vals[0];
+		this.lastKey = keys[0];
+		const lk = keys.pop()!;
+		const lv = vals.pop()!;
+		if (keys.length) {
+			keys[0] = lk;
+			vals[0] = lv;
+			let i = 0;
+			for (;;) {
+				const l = 2 * i + 1;
+				const r = l + 1;
+				let m = i;
+				if (l < keys.length && this.less(l, m)) m = l;
+				if (r < keys.length && this.less(r, m)) m = r;
+				if (m === i) break;
+				[keys[i], keys[m]] = [keys[m], keys[i]];
+				[vals[i], vals[m]] = [vals[m], vals[i]];
+				i = m;
+			}
+		}
+		return top;
+	}
 }
 
 /** The structure of L for a pattern and an ordering, reusable for many numeric factorisations. */
