@@ -1,0 +1,43 @@
+import { error, fail } from '@sveltejs/kit';
+import { canEdit, NOT_FOUND, requireDiagram } from '$lib/server/access';
+import * as vehicles from '$lib/server/garage/vehicles';
+import { list, one, restore, revisionNumber } from '../../../../api/diagrams/[id]/revisions/revisions.server';
+import type { Actions, PageServerLoad } from './$types';
+
+// The revision history of a diagram: every accepted save, newest first; one can be viewed and
+// restored (which saves it again as the newest revision; nothing is ever removed).
+export const load: PageServerLoad = async ({ locals, params, url }) => {
+	const { diagram, vehicle } = await requireDiagram(locals, params.id, 'view');
+	const wanted = url.searchParams.get('view');
+	let viewing = null;
+	if (wanted !== null) {
+		const n = revisionNumber(wanted);
+		viewing = n === null ? null : await one(diagram.id, n);
+		if (!viewing) error(404, NOT_FOUND);
+	}
+	return {
+		diagram: { id: diagram.id, title: diagram.title, revision: diagram.revision },
+		vehicle: vehicles.toJson(vehicle),
+		revisions: await list(diagram.id),
+		viewing,
+		editable: canEdit(locals.user, diagram)
+	};
+};
+
+export const actions: Actions = {
+	restore: async ({ locals, params, request }) => {
+		const { diagram } = await requireDiagram(locals, params.id, 'edit');
+		const form = await request.formData();
+		const n = revisionNumber(String(form.get('revision') ?? ''));
+		const current = revisionNumber(String(form.get('current') ?? ''));
+		if (n === null || current === null) return fail(400, { message: 'Choose a revision to restore.' });
+		const r = await restore(diagram.id, n, current, locals.user!.id);
+		if (!r.ok) {
+			if (r.reason === 'missing') return fail(404, { message: `There is no revision ${n}.` });
+			return fail(409, {
+				message: `Not restored: someone saved revision ${r.currentRevision} since this page was opened. Look at the newest revision, then restore again if you still want revision ${n}.`
+			});
+		}
+		return { restored: n, revision: r.diagram.revision };
+	}
+};
