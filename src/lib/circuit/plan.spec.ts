@@ -1,0 +1,252 @@
+import { describe, expect, it } from 'vitest';
+import { placeReading, type PredictionTable, type Tolerance } from './outcomes';
+import { buildPlan, checklist, expectedProbesLowerBound, leaves, pointByPointWalk, replan, type PlanNode } from './plan';
+import { harnessTable, randomTable, rng } from './testing/tables';
+
+const dmm20V: Tolerance = { abs: 0.02, rel: 0.005 }; // ±(0.5 % + 2 counts of 10 mV), from memory (TRADE.md)
+
+/** Four equally likely suspects; P1 and P2 split them in halves, Q4 reads four levels. */
+function fourSuspects(q4Cost: number): PredictionTable {
+	return {
+		suspects: ['A', 'B', 'C', 'D'].map((id) => ({ id, prior: 1 })),
+		probes: [
+			{ id: 'P1', cost: 1, tolerance: dmm20V, unit: 'V' },
+			{ id: 'P2', cost: 1, tolerance: dmm20V, unit: 'V' },
+			{ id: 'Q4', cost: q4Cost, tolerance: dmm20V, unit: 'V' }
+		],
+		readings: [
+			[0, 0, 12, 12],
+			[0, 12, 0, 12],
+			[0, 4, 8, 12]
+		]
+	};
+}
+
+/** Follows the plan with the readings a suspect predicts; returns the leaf reached. */
+function follow(t: PredictionTable, node: PlanNode, s: number): PlanNode {
+	while (node.kind === 'probe') {
+		const r = t.readings[node.probe][s];
+		expect(r).not.toBeNull();
+		const bins = { bins: node.outcomes.map((o) => o.bin), unread: node.unread };
+		const k = placeReading(bins, r!);
+		expect(k).not.toBeNull();
+		node = node.outcomes[k!].next;
+	}
+	return node;
+}
+
+describe('buildPlan (worked by hand)', () => {
+	// Four equally likely suspects hold H = log2 4 = 2 bits. Q4 yields all 2 bits, P1 or P2
+	// yields 1 bit (two equal halves). Information per cost: Q4 = 2 / cost, P1 = P2 = 1 / 1.
+	it('takes the four-way probe when its information per cost is higher', () => {
+		// Q4 at cost 1.5: 2 / 1.5 = 1.33 bits per unit > 1 → one probe, which meets the lower
+		// bound H / log2 K = 2 / log2 4 = 1 exactly.
+		const t = fourSuspects(1.5);
+		const plan = buildPlan(t);
+		expect(plan.root.kind === 'probe' && t.probes[plan.root.probe].id).toBe('Q4');
+		expect(plan.root.kind === 'probe' && plan.root.gain).toBeCloseTo(2, 12);
+		expect(plan.expectedProbes).toBeCloseTo(1, 12);
+		expect(plan.expectedCost).toBeCloseTo(1.5, 12);
+		expect(expectedProbesLowerBound(t)).toEqual({ probes: 1, entropyBits: 2, maxOutcomes: 4 });
+	});
+
+	it('prefers two cheap halving probes when the four-way probe costs too much', () => {
+		// Q4 at cost 3: 2 / 3 = 0.67 < 1 → P1 first (ties with P2 in gain and cost; table order).
+		// Each half then holds A, B or C, D: P2 gives 1 bit for 1, Q4 1 bit for 3 → P2.
+		// Two probes for cost 2 always, cheaper than Q4's 3.
+		const t = fourSuspects(3);
+		const plan = buildPlan(t);
+		expect(plan.steps).toBe(3);
+		expect(plan.expectedProbes).toBeCloseTo(2, 12);
+		expect(plan.expectedCost).toBeCloseTo(2, 12);
+		const steps = checklist(t, plan, 2);
+		// ±0.02 V at 0 V; ±(0.06 + 0.02) V at 12 V.
+		expect(steps.map((s) => [s.step, s.probe, s.outcomes.map((o) => o.text)])).toEqual([
+			[1, 'P1', ['-0.02–0.02 V: go to step 2', '11.92–12.08 V: go to step 3']],
+			[2, 'P2', ['-0.02–0.02 V: found — A', '11.92–12.08 V: found — B']],
+			[3, 'P2', ['-0.02–0.02 V: found — C', '11.92–12.08 V: found — D']]
+		]);
+		expect(steps[0].outcomes.map((o) => o.chance)).toEqual([0.5, 0.5]);
+		expect(steps[1].expected.map((e) => [e.suspect, e.reading, e.chance])).toEqual([
+			['A', 0, 0.5],
+			['B', 12, 0.5]
+		]);
+	});
+
+	it('meets the bound exactly for dyadic priors', () => {
+		// Priors 1/2, 1/4, 1/8, 1/8: H = 1.75 bits. Each probe isolates one suspect (K = 2), so the
+		// bound is 1.75 probes. Information first: isolating A splits 1/2 | 1/2 (1 bit), better
+		// than B (H(1/4) = 0.81) or C (H(1/8) = 0.54). Then B among B, C, D (1/2 | 1/2), then C.
+		// Expected probes 1/2·1 + 1/4·2 + 1/4·3 = 1.75: Shannon's bound is tight for dyadic
+		// chances (Cover & Thomas, "Elements of Information Theory", 2nd ed., §5.3).
+		const t: PredictionTable = {
+			suspects: [
+				{ id: 'A', prior: 0.5 },
+				{ id: 'B', prior: 0.25 },
+				{ id: 'C', prior: 0.125 },
+				{ id: 'D', prior: 0.125 }
+			],
+			probes: ['isolates C', 'isolates B', 'isolates A'].map((id) => ({ id, cost: 1, tolerance: dmm20V })),
+			readings: [
+				[12, 12, 0, 12],
+				[12, 0, 12, 12],
+				[0, 12, 12, 12]
+			]
+		};
+		const plan = buildPlan(t);
+		expect(plan.expectedProbes).toBeCloseTo(1.75, 12);
+		const lb = expectedProbesLowerBound(t);
+		expect(lb.entropyBits).toBeCloseTo(1.75, 12);
+		expect(lb.probes).toBeCloseTo(1.75, 12);
+		expect(checklist(t, plan).map((s) => s.probe)).toEqual(['isolates A', 'isolates B', 'isolates C']);
+	});
+
+	it('ends on an ambiguity group when no probe tells the rest apart', () => {
+		// Two shorts behind one fuse read the same everywhere (see cover.spec.ts).
+		const t: PredictionTable = {
+			suspects: ['fuse blown', 'short at junction 1', 'short at junction 2'].map((id) => ({ id, prior: 1 })),
+			probes: [{ id: 'ohms', cost: 5, tolerance: { abs: 0.3, rel: 0.008 }, unit: 'Ω' }],
+			readings: [[2.4, 0.06, 0.08]]
+		};
+		const plan = buildPlan(t);
+		const kinds = leaves(plan.root).map((l) => [l.kind, l.suspects]);
+		expect(kinds).toEqual([
+			['ambiguous', [1, 2]],
+			['found', [0]]
+		]);
+		expect(checklist(t, plan, 1)[0].outcomes[0].text).toBe(
+			'-0.2–0.4 Ω: cannot be told apart with a meter: replace or inspect — short at junction 1, short at junction 2'
+		);
+		// Lower bound: classes {fuse} 1/3 and {shorts} 2/3 → H = 0.918 bits, K = 2.
+		expect(expectedProbesLowerBound(t).probes).toBeCloseTo(-(1 / 3) * Math.log2(1 / 3) - (2 / 3) * Math.log2(2 / 3), 12);
+	});
+
+	it('cuts branches at the depth limit and marks them unresolved', () => {
+		const t = fourSuspects(3);
+		const plan = buildPlan(t, { maxDepth: 1 });
+		expect(leaves(plan.root).map((l) => l.kind)).toEqual(['unresolved', 'unresolved']);
+		expect(plan.unresolvedMass).toBeCloseTo(1, 12);
+		expect(checklist(t, plan)[0].outcomes[0].text).toBe('-0.02–0.02 V: enter the readings so far to plan again — A, B');
+	});
+
+	it('rejects bad options with the field named', () => {
+		const t = fourSuspects(3);
+		expect(() => buildPlan(t, { exclude: ['P9'] })).toThrow(/buildPlan: exclude\[0\] names probe "P9"/);
+		expect(() => buildPlan(t, { weights: [1, 1, 1] })).toThrow(/weights has 3 entries, expected one per suspect \(4\)/);
+		expect(() => buildPlan(t, { weights: [1, -1, 1, 1] })).toThrow(/weights\[1\] must be a finite number ≥ 0/);
+	});
+});
+
+describe('buildPlan on generated tables', () => {
+	// Checked by definition on every case: the plan's expected probe count is at least Shannon's
+	// bound; each suspect, read as predicted, ends on a leaf that holds it; leaf chances sum to 1.
+	it('is sound and never beats the lower bound', () => {
+		const random = rng(1948);
+		for (let k = 0; k < 120; k++) {
+			const withNulls = k % 3 === 2;
+			const t = randomTable(random, { suspects: 2 + Math.floor(random() * 14), probes: 1 + Math.floor(random() * 8), nullRate: withNulls ? 0.15 : 0 });
+			const plan = buildPlan(t, { maxDepth: 100 });
+			expect(plan.unresolvedMass).toBe(0);
+			const lb = expectedProbesLowerBound(t);
+			expect(plan.expectedProbes).toBeGreaterThanOrEqual(lb.probes - 1e-9);
+			expect(leaves(plan.root).reduce((a, l) => a + l.mass, 0)).toBeCloseTo(1, 9);
+			if (!withNulls) t.suspects.forEach((_, s) => expect(follow(t, plan.root, s).suspects).toContain(s));
+		}
+	});
+
+	it('plans a 40-suspect harness with fewer probes than the point-by-point walk', () => {
+		const { table, walkOrder } = harnessTable(rng(2), { suspects: 40 });
+		const plan = buildPlan(table, { maxDepth: 100 });
+		expect(plan.unresolvedMass).toBe(0);
+		table.suspects.forEach((_, s) => expect(follow(table, plan.root, s).suspects).toContain(s));
+		const walk = pointByPointWalk(table, walkOrder);
+		expect(plan.expectedProbes).toBeGreaterThanOrEqual(expectedProbesLowerBound(table).probes);
+		expect(plan.expectedProbes).toBeLessThan(walk.expectedProbes);
+	});
+});
+
+describe('pointByPointWalk (worked by hand)', () => {
+	it('counts the probes taken in order until the fault is located', () => {
+		const t = fourSuspects(3);
+		// P1 then P2: two readings locate any of the four; Q4 is never needed.
+		expect(pointByPointWalk(t, ['P1', 'P2', 'Q4'])).toEqual({ expectedProbes: 2, expectedCost: 2, unlocatedMass: 0 });
+		// Q4 first locates everything at once.
+		expect(pointByPointWalk(t, ['Q4', 'P1'])).toEqual({ expectedProbes: 1, expectedCost: 3, unlocatedMass: 0 });
+		// P1 alone leaves each suspect with its partner.
+		expect(pointByPointWalk(t, ['P1'])).toEqual({ expectedProbes: 1, expectedCost: 1, unlocatedMass: 1 });
+		expect(() => pointByPointWalk(t, ['P1', 'nope'])).toThrow(/order\[1\] names probe "nope"/);
+	});
+});
+
+describe('replan', () => {
+	// Gauges behind a bimetal stabilizer (TRADE.md): healthy ≈ 10 V average, stuck closed =
+	// battery voltage, stuck open = 0, a tired bimetal reads low (8 V, invented). The swing of
+	// ±1 V on the display is an invented band. t(10) = 1.07, t(8) = 1.06, t(12.6) = 1.083.
+	const gauges: PredictionTable = {
+		suspects: ['healthy', 'stuck closed', 'stuck open', 'low output', 'gauge open'].map((id) => ({ id, prior: 1 })),
+		probes: [
+			{ id: 'gauge feed', cost: 3, tolerance: { ...dmm20V, band: 1 }, unit: 'V' },
+			{ id: 'sender wire', cost: 1, tolerance: dmm20V, unit: 'V' }
+		],
+		readings: [
+			[10, 12.6, 0, 8, null],
+			[6, 7, 0, 5, 0]
+		]
+	};
+
+	it('drops suspects whose prediction is outside tolerance of the reading', () => {
+		// 10.4 V: healthy |0.4| ≤ 1.07 stays; low output |2.4| > 1.06, stuck closed |2.2| > 1.083
+		// and stuck open go. "Gauge open" has no defined feed reading: it stays, at weight ÷ K.
+		// K = 3 bins: healthy (8.93–11.07) and low output (6.94–9.06) overlap and share one.
+		// Chances 1 : 1/3 → 0.75 and 0.25.
+		const r = replan(gauges, [{ probe: 'gauge feed', reading: 10.4 }]);
+		expect(r.remaining).toEqual([
+			{ suspect: 'healthy', chance: expect.closeTo(0.75, 12) },
+			{ suspect: 'gauge open', chance: expect.closeTo(0.25, 12) }
+		]);
+		expect(r.dropped.map((d) => d.suspect)).toEqual(['stuck closed', 'stuck open', 'low output']);
+		expect(r.unexplained).toEqual([]);
+		// The sender wire (6 V vs 0 V) tells the two apart next.
+		expect(r.plan.root.kind === 'probe' && r.table.probes[r.plan.root.probe].id).toBe('sender wire');
+		expect(r.table.suspects.map((s) => s.id)).toEqual(['healthy', 'gauge open']);
+	});
+
+	it('keeps both suspects a reading cannot split', () => {
+		// 9.0 V: healthy |1.0| ≤ 1.07 and low output |1.0| ≤ 1.06 both stay.
+		const r = replan(gauges, [{ probe: 'gauge feed', reading: 9 }]);
+		expect(r.remaining.map((s) => s.suspect)).toEqual(['healthy', 'low output', 'gauge open']);
+	});
+
+	it('reports a reading no suspect predicts and leaves the suspects as they were', () => {
+		// 3 V on the sender wire: predictions are 0, 5, 6, 7 V (±0.02–0.055 V).
+		const r = replan(gauges, [{ probe: 'sender wire', reading: 3 }]);
+		expect(r.unexplained).toEqual([{ probe: 'sender wire', reading: 3, reason: 'no suspect predicts it' }]);
+		expect(r.remaining).toHaveLength(5);
+		expect(r.dropped).toEqual([]);
+		// On the gauge feed, 5 V fits no defined prediction, but "gauge open" has none there and a
+		// reading cannot rule it out: it is the one left.
+		expect(replan(gauges, [{ probe: 'gauge feed', reading: 5 }]).remaining.map((s) => s.suspect)).toEqual(['gauge open']);
+		// 7 V on the sender wire is what "stuck closed" predicts, ruled out by 10.4 V already.
+		const later = replan(gauges, [
+			{ probe: 'gauge feed', reading: 10.4 },
+			{ probe: 'sender wire', reading: 7 }
+		]);
+		expect(later.unexplained).toEqual([{ probe: 'sender wire', reading: 7, reason: 'contradicts the earlier readings' }]);
+	});
+
+	it('plans without a probe reported unreachable', () => {
+		const first = buildPlan(gauges);
+		expect(first.root.kind === 'probe' && gauges.probes[first.root.probe].id).toBe('sender wire');
+		const r = replan(gauges, [{ probe: 'sender wire', unreachable: true }]);
+		expect(r.unavailable).toEqual(['sender wire']);
+		const used = new Set<string>();
+		const walk = (n: PlanNode): void => {
+			if (n.kind !== 'probe') return;
+			used.add(r.table.probes[n.probe].id);
+			n.outcomes.forEach((o) => walk(o.next));
+		};
+		walk(r.plan.root);
+		expect([...used]).toEqual(['gauge feed']);
+		expect(() => replan(gauges, [{ probe: 'tank sender', reading: 1 }])).toThrow(/readingsTaken\[0\]\.probe names probe "tank sender"/);
+	});
+});

@@ -1,0 +1,626 @@
+// The step-by-step probe plan: a decision tree over the suspects, its printed checklist, what
+// it costs on average, and the yardsticks the benchmark compares it with.
+//
+// At each step (a set of remaining suspects with their chances, the priors renormalised) the
+// next probe is the one with the most expected information per unit of cost: the entropy of
+// the suspects' distribution minus its expected entropy after reading the probe's outcome bin,
+// divided by the probe's cost (a greedy, one-step-lookahead rule; not optimal in general —
+// finding the cheapest decision tree is NP-hard, Hyafil & Rivest 1976, "Constructing optimal
+// binary decision trees is NP-complete", Inf. Process. Lett. 5(1):15–17). Bins are worked out
+// again over the suspects still in play at each step, which can be finer than the table-wide
+// bins (outcomes.ts: tolerance chains break when suspects drop out).
+//
+// A suspect with no defined reading on the chosen probe cannot be ruled out by it: it goes on
+// into every branch, and is taken to be equally likely to show any of the K bins (weight ÷ K
+// in each branch), which keeps the branch chances summing to one. replan() weighs real
+// readings the same way.
+//
+// A step ends the plan with one suspect left ("found"), or with several that no probe tells
+// apart any more ("cannot be told apart with a meter: replace or inspect"). Depth and size are
+// bounded; branches cut short are "unresolved" and are planned again from real readings.
+import { ambiguityClasses } from './cover';
+import {
+	binReadings,
+	checkTable,
+	consistent,
+	formatRange,
+	maxOutcomes,
+	toleranceAt,
+	type OutcomeBin,
+	type PredictionTable,
+	type ReadingRange
+} from './outcomes';
+
+export type PlanOptions = {
+	/** Probe ids that cannot be used. */
+	exclude?: readonly string[];
+	/** Chance weight of each suspect instead of its prior (0 = ruled out); renormalised. */
+	weights?: readonly number[];
+	/** Most probes along any branch (default 30). */
+	maxDepth?: number;
+	/** Most steps in the whole plan (default 2000); the likeliest branches are planned first. */
+	maxSteps?: number;
+};
+
+type NodeBase = {
+	/** Suspect indices still in play here. */
+	suspects: number[];
+	/** Chance of reaching this point, from the start of the plan. */
+	mass: number;
+	/** Probes taken before this point. */
+	depth: number;
+	/** Cost of the probes taken before this point. */
+	spent: number;
+};
+
+export type PlanStep = NodeBase & {
+	kind: 'probe';
+	probe: number;
+	/** Chance of each suspect here (same order as `suspects`), summing to one. */
+	chances: number[];
+	/** Expected information from this probe, in bits. */
+	gain: number;
+	outcomes: PlanOutcome[];
+	/** Suspects with no defined reading on this probe: they follow every outcome. */
+	unread: number[];
+};
+
+export type PlanOutcome = {
+	bin: OutcomeBin;
+	/** Chance of this outcome given that the step is reached. */
+	chance: number;
+	next: PlanNode;
+};
+
+export type PlanLeaf = NodeBase &
+	(
+		| { kind: 'found'; suspect: number }
+		| { kind: 'ambiguous' }
+		| { kind: 'unresolved'; reason: 'depth limit' | 'size limit' }
+	);
+
+export type PlanNode = PlanStep | PlanLeaf;
+
+export type Plan = {
+	root: PlanNode;
+	/** Number of probe steps in the tree. */
+	steps: number;
+	/** Expected number of probes until a leaf, under the suspects' chances. */
+	expectedProbes: number;
+	expectedCost: number;
+	/** Chance of ending on an unresolved leaf (0 for a complete plan). */
+	unresolvedMass: number;
+};
+
+const LN2 = Math.log(2);
+
+function availability(table: PredictionTable, exclude: readonly string[] | undefined, where: string): boolean[] {
+	const available = table.probes.map(() => true);
+	(exclude ?? []).forEach((id, i) => {
+		const p = table.probes.findIndex((q) => q.id === id);
+		if (p < 0) throw new Error(`${where}: exclude[${i}] names probe "${id}", which is not in the table`);
+		available[p] = false;
+	});
+	return available;
+}
+
+function startWeights(table: PredictionTable, weights: readonly number[] | undefined, where: string): number[] {
+	const w = weights ? [...weights] : table.suspects.map((s) => s.prior);
+	if (w.length !== table.suspects.length) throw new Error(`${where}: weights has ${w.length} entries, expected one per suspect (${table.suspects.length})`);
+	w.forEach((x, i) => {
+		if (!(Number.isFinite(x) && x >= 0)) throw new Error(`${where}: weights[${i}] must be a finite number ≥ 0, got ${x}`);
+	});
+	const total = w.reduce((a, b) => a + b, 0);
+	if (!(total > 0)) throw new Error(`${where}: weights are all zero: no suspect left to plan for`);
+	return w.map((x) => x / total);
+}
+
+/** Per-probe precomputation: acceptance intervals and each suspect's rank by low end. */
+type Prepared = { low: Float64Array[]; high: Float64Array[]; rank: Int32Array[]; byRank: Int32Array[] };
+
+function prepare(table: PredictionTable): Prepared {
+	const n = table.suspects.length;
+	const low: Float64Array[] = [];
+	const high: Float64Array[] = [];
+	const rank: Int32Array[] = [];
+	const byRank: Int32Array[] = [];
+	table.probes.forEach((probe, p) => {
+		const lo = new Float64Array(n);
+		const hi = new Float64Array(n);
+		const defined: number[] = [];
+		for (let s = 0; s < n; s++) {
+			const r = table.readings[p][s];
+			if (r === null) continue;
+			const t = toleranceAt(probe.tolerance, r);
+			lo[s] = r - t;
+			hi[s] = r + t;
+			defined.push(s);
+		}
+		defined.sort((a, b) => lo[a] - lo[b] || a - b);
+		const rk = new Int32Array(n).fill(-1);
+		defined.forEach((s, i) => (rk[s] = i));
+		low.push(lo);
+		high.push(hi);
+		rank.push(rk);
+		byRank.push(Int32Array.from(defined));
+	});
+	return { low, high, rank, byRank };
+}
+
+const xlogx = (x: number): number => (x > 0 ? x * Math.log(x) : 0);
+
+/** Entropy (nats) of weights with total m and Σ w·ln w = s. */
+const entropyOf = (m: number, s: number): number => (m > 0 ? Math.log(m) - s / m : 0);
+
+/** Per-point sums shared by every probe scored there. */
+type Point = { members: number[]; w: Float64Array; wl: Float64Array; mass: number; sAll: number; buf: Int32Array; inside: Uint8Array };
+
+function point(members: number[], w: Float64Array, buf: Int32Array): Point {
+	const wl = new Float64Array(w.length);
+	const inside = new Uint8Array(w.length);
+	let mass = 0;
+	let sAll = 0;
+	for (const s of members) {
+		wl[s] = xlogx(w[s]);
+		mass += w[s];
+		sAll += wl[s];
+		inside[s] = 1;
+	}
+	return { members, w, wl, mass, sAll, buf, inside };
+}
+
+/**
+ * Expected entropy drop (bits) from reading probe p at a point, and the number of bins there;
+ * fewer than 2 bins when the probe splits nothing.
+ */
+function score(prep: Prepared, p: number, at: Point): { gain: number; bins: number } {
+	const { members, w, wl, mass, sAll, buf } = at;
+	const rank = prep.rank[p];
+	let nullMass = 0;
+	let nullS = 0;
+	let k = 0;
+	for (let i = 0; i < members.length; i++) {
+		const s = members[i];
+		const r = rank[s];
+		if (r < 0) {
+			nullMass += w[s];
+			nullS += wl[s];
+		} else buf[k++] = r;
+	}
+	const order = prep.byRank[p];
+	// Members in order of their interval's low end: sort their ranks, or for a large point
+	// pick them out of the probe's whole order, whichever is less work.
+	let sorted: Int32Array;
+	if (k * 8 > order.length) {
+		k = 0;
+		for (let r = 0; r < order.length; r++) if (at.inside[order[r]]) buf[k++] = r;
+		sorted = buf.subarray(0, k);
+	} else sorted = buf.subarray(0, k).sort();
+	const lo = prep.low[p];
+	const hi = prep.high[p];
+	const binMass: number[] = [];
+	const binS: number[] = [];
+	let end = -Infinity;
+	let bm = 0;
+	let bs = 0;
+	for (let i = 0; i < k; i++) {
+		const s = order[sorted[i]];
+		if (i > 0 && lo[s] > end) {
+			binMass.push(bm);
+			binS.push(bs);
+			bm = 0;
+			bs = 0;
+		}
+		if (hi[s] > end || i === 0) end = i === 0 ? hi[s] : Math.max(end, hi[s]);
+		bm += w[s];
+		bs += wl[s];
+	}
+	if (k > 0) {
+		binMass.push(bm);
+		binS.push(bs);
+	}
+	const K = binMass.length;
+	if (K < 2) return { gain: 0, bins: K };
+	// An unread suspect goes into every branch at weight ÷ K: Σ (w/K)·ln(w/K) = (S − W ln K)/K.
+	const nullPart = (nullS - nullMass * Math.log(K)) / K;
+	let after = 0;
+	for (let b = 0; b < K; b++) {
+		const m = binMass[b] + nullMass / K;
+		after += (m / mass) * entropyOf(m, binS[b] + nullPart);
+	}
+	return { gain: Math.max(0, entropyOf(mass, sAll) - after) / LN2, bins: K };
+}
+
+/**
+ * Builds the plan: a decision tree picking, at each step, the probe of most expected
+ * information per unit cost.
+ *
+ * @example
+ * const plan = buildPlan(table);
+ * const steps = checklist(table, plan); // "12.52–12.68 V: go to step 2" …
+ */
+export function buildPlan(table: PredictionTable, options: PlanOptions = {}): Plan {
+	checkTable(table, 'buildPlan');
+	const maxDepth = options.maxDepth ?? 30;
+	const maxSteps = options.maxSteps ?? 2000;
+	const available = availability(table, options.exclude, 'buildPlan');
+	const start = startWeights(table, options.weights, 'buildPlan');
+	const prep = prepare(table);
+	const probes = table.probes.map((_, p) => p).filter((p) => available[p]);
+	const buf = new Int32Array(table.suspects.length);
+
+	// Weights are absolute chances of (suspect, reaching this point), indexed by suspect.
+	type Pending = { members: number[]; w: Float64Array; mass: number; depth: number; spent: number; place: (n: PlanNode) => void; seq: number };
+	const heap: Pending[] = [];
+	const massOf = (members: number[], w: Float64Array): number => members.reduce((m, s) => m + w[s], 0);
+	// Max-heap on mass, first come first served among equals (keeps the plan deterministic).
+	const before = (a: Pending, b: Pending): boolean => a.mass > b.mass || (a.mass === b.mass && a.seq < b.seq);
+	const push = (x: Pending): void => {
+		heap.push(x);
+		for (let i = heap.length - 1; i > 0; ) {
+			const q = (i - 1) >> 1;
+			if (!before(heap[i], heap[q])) break;
+			[heap[i], heap[q]] = [heap[q], heap[i]];
+			i = q;
+		}
+	};
+	const pop = (): Pending => {
+		const top = heap[0];
+		const last = heap.pop()!;
+		if (heap.length > 0) {
+			heap[0] = last;
+			for (let i = 0; ; ) {
+				const l = 2 * i + 1;
+				const r = l + 1;
+				let m = i;
+				if (l < heap.length && before(heap[l], heap[m])) m = l;
+				if (r < heap.length && before(heap[r], heap[m])) m = r;
+				if (m === i) break;
+				[heap[i], heap[m]] = [heap[m], heap[i]];
+				i = m;
+			}
+		}
+		return top;
+	};
+
+	let root: PlanNode | null = null;
+	let seq = 0;
+	const members0 = table.suspects.map((_, s) => s).filter((s) => start[s] > 0);
+	const w0 = Float64Array.from(start);
+	push({ members: members0, w: w0, mass: massOf(members0, w0), depth: 0, spent: 0, place: (n) => (root = n), seq: seq++ });
+	let steps = 0;
+	while (heap.length > 0) {
+		const at = pop();
+		const mass = at.mass;
+		const base: NodeBase = { suspects: at.members, mass, depth: at.depth, spent: at.spent };
+		if (at.members.length === 1) {
+			at.place({ ...base, kind: 'found', suspect: at.members[0] });
+			continue;
+		}
+		let best = -1;
+		let bestGain = 0;
+		let bestScore = -Infinity;
+		const here = point(at.members, at.w, buf);
+		for (const p of probes) {
+			const { gain, bins } = score(prep, p, here);
+			if (bins < 2) continue;
+			const c = table.probes[p].cost;
+			const sc = gain / c;
+			// Most information per cost; then more information; then cheaper; then table order.
+			if (sc > bestScore + 1e-12 || (Math.abs(sc - bestScore) <= 1e-12 && (gain > bestGain + 1e-12 || (Math.abs(gain - bestGain) <= 1e-12 && c < table.probes[best].cost)))) {
+				best = p;
+				bestGain = gain;
+				bestScore = sc;
+			}
+		}
+		if (best < 0) {
+			at.place({ ...base, kind: 'ambiguous' });
+			continue;
+		}
+		if (at.depth >= maxDepth || steps >= maxSteps) {
+			at.place({ ...base, kind: 'unresolved', reason: at.depth >= maxDepth ? 'depth limit' : 'size limit' });
+			continue;
+		}
+		steps++;
+		const { bins, unread } = binReadings(table.readings[best], table.probes[best].tolerance, at.members);
+		const K = bins.length;
+		const step: PlanStep = {
+			...base,
+			kind: 'probe',
+			probe: best,
+			chances: at.members.map((s) => at.w[s] / mass),
+			gain: bestGain,
+			outcomes: [],
+			unread
+		};
+		for (const bin of bins) {
+			const members = [...bin.suspects, ...unread].sort((a, b) => a - b);
+			const w = new Float64Array(table.suspects.length);
+			for (const s of bin.suspects) w[s] = at.w[s];
+			for (const s of unread) w[s] = at.w[s] / K;
+			const outcome: PlanOutcome = { bin, chance: 0, next: null as unknown as PlanNode };
+			const childMass = massOf(members, w);
+			const child: Pending = { members, w, mass: childMass, depth: at.depth + 1, spent: at.spent + table.probes[best].cost, place: (n) => (outcome.next = n), seq: seq++ };
+			outcome.chance = childMass / mass;
+			step.outcomes.push(outcome);
+			push(child);
+		}
+		at.place(step);
+	}
+	const tree = root as unknown as PlanNode;
+	let expectedProbes = 0;
+	let expectedCost = 0;
+	let unresolvedMass = 0;
+	for (const leaf of leaves(tree)) {
+		expectedProbes += leaf.mass * leaf.depth;
+		expectedCost += leaf.mass * leaf.spent;
+		if (leaf.kind === 'unresolved') unresolvedMass += leaf.mass;
+	}
+	return { root: tree, steps, expectedProbes, expectedCost, unresolvedMass };
+}
+
+/** The leaves of a plan, depth first. */
+export function leaves(node: PlanNode): PlanLeaf[] {
+	if (node.kind !== 'probe') return [node];
+	return node.outcomes.flatMap((o) => leaves(o.next));
+}
+
+// ---- The printed checklist ----
+
+export type ChecklistThen =
+	| { kind: 'step'; step: number }
+	| { kind: 'found'; suspect: string }
+	| { kind: 'ambiguous'; suspects: string[] }
+	| { kind: 'unresolved'; suspects: string[] };
+
+export type ChecklistOutcome = {
+	accepts: ReadingRange;
+	/** The reading range as printed, with the probe's unit. */
+	reading: string;
+	chance: number;
+	then: ChecklistThen;
+	/** One line for the page: "12.52–12.68 V: go to step 3". */
+	text: string;
+};
+
+export type ChecklistStep = {
+	step: number;
+	probe: string;
+	label: string;
+	cost: number;
+	/** What each remaining suspect predicts here, likeliest first. */
+	expected: { suspect: string; label: string; reading: number | null; chance: number }[];
+	outcomes: ChecklistOutcome[];
+	/** What to do when the reading falls in none of the ranges. */
+	otherwise: string;
+};
+
+export const NO_BIN_MATCHES =
+	'No range matches: no suspect predicts this reading. Check the probe contact, the meter setting and the diagram, then enter the reading to plan again.';
+
+/**
+ * Flattens a plan into numbered steps (depth first, outcomes in rising order of reading), each
+ * outcome saying where to go next or what was found.
+ */
+export function checklist(table: PredictionTable, plan: Plan, digits = 2): ChecklistStep[] {
+	const steps: ChecklistStep[] = [];
+	const names = (ids: number[]) => ids.map((s) => table.suspects[s].label ?? table.suspects[s].id);
+	const visit = (node: PlanStep): number => {
+		const number = steps.length + 1;
+		const probe = table.probes[node.probe];
+		const step: ChecklistStep = {
+			step: number,
+			probe: probe.id,
+			label: probe.label ?? probe.id,
+			cost: probe.cost,
+			expected: node.suspects
+				.map((s, i) => ({ suspect: table.suspects[s].id, label: table.suspects[s].label ?? table.suspects[s].id, reading: table.readings[node.probe][s], chance: node.chances[i] }))
+				.sort((a, b) => b.chance - a.chance),
+			outcomes: [],
+			otherwise: NO_BIN_MATCHES
+		};
+		steps.push(step);
+		for (const o of node.outcomes) {
+			const reading = formatRange(o.bin.accepts, probe.unit ?? '', digits);
+			const next = o.next;
+			let then: ChecklistThen;
+			let text: string;
+			if (next.kind === 'probe') {
+				then = { kind: 'step', step: visit(next) };
+				text = `${reading}: go to step ${then.step}`;
+			} else if (next.kind === 'found') {
+				then = { kind: 'found', suspect: table.suspects[next.suspect].id };
+				text = `${reading}: found — ${names([next.suspect])[0]}`;
+			} else if (next.kind === 'ambiguous') {
+				then = { kind: 'ambiguous', suspects: next.suspects.map((s) => table.suspects[s].id) };
+				text = `${reading}: cannot be told apart with a meter: replace or inspect — ${names(next.suspects).join(', ')}`;
+			} else {
+				then = { kind: 'unresolved', suspects: next.suspects.map((s) => table.suspects[s].id) };
+				text = `${reading}: enter the readings so far to plan again — ${names(next.suspects).join(', ')}`;
+			}
+			step.outcomes.push({ accepts: o.bin.accepts, reading, chance: o.chance, then, text });
+		}
+		return number;
+	};
+	if (plan.root.kind === 'probe') visit(plan.root);
+	return steps;
+}
+
+// ---- Yardsticks ----
+
+export type LowerBound = {
+	/** No strategy's expected probe count is below this. */
+	probes: number;
+	/** H of the chances of the ambiguity classes, in bits. */
+	entropyBits: number;
+	/** K: the most outcomes any one probe can tell apart. */
+	maxOutcomes: number;
+};
+
+/**
+ * The information-theoretic lower bound on the expected number of probes of any plan.
+ *
+ * Statement: let C be the ambiguity class of the true suspect (cover.ts; no meter reading can
+ * split a class, and each class has its chance, the sum of its suspects' chances) and K the
+ * largest number of pairwise told-apart readings of any one probe (outcomes.ts maxOutcomes).
+ * Any plan that takes one probe at a time, branches into at most K outcomes per probe and
+ * ends each branch inside one class takes on average at least H(C) / log2 K probes.
+ * Why: the outcomes read along a branch form a K-ary prefix-free code for the leaf reached,
+ * and the leaf determines C, so E[probes] ≥ H(leaf)/log2 K ≥ H(C)/log2 K (Shannon 1948, "A
+ * Mathematical Theory of Communication", Bell Syst. Tech. J. 27, the noiseless coding theorem;
+ * with the Kraft–McMillan inequality for K-ary prefix codes). When every suspect is its own
+ * class this is H(priors)/log2 K. It does not bound plans cut short (unresolved leaves).
+ */
+export function expectedProbesLowerBound(table: PredictionTable, options: Pick<PlanOptions, 'exclude' | 'weights'> = {}): LowerBound {
+	checkTable(table, 'expectedProbesLowerBound');
+	const available = availability(table, options.exclude, 'expectedProbesLowerBound');
+	const w = startWeights(table, options.weights, 'expectedProbesLowerBound');
+	const members = table.suspects.map((_, s) => s).filter((s) => w[s] > 0);
+	const sub = subTable(table, members);
+	const exclude = table.probes.filter((_, p) => !available[p]).map((p) => p.id);
+	const classes = ambiguityClasses(sub, { exclude });
+	let h = 0;
+	for (const c of classes) {
+		const m = c.reduce((a, i) => a + w[members[i]], 0);
+		if (m > 0) h -= m * Math.log2(m);
+	}
+	let K = 1;
+	sub.probes.forEach((p, i) => {
+		if (available[i]) K = Math.max(K, maxOutcomes(sub.readings[i], p.tolerance));
+	});
+	return { probes: K > 1 ? h / Math.log2(K) : 0, entropyBits: h, maxOutcomes: K };
+}
+
+export type WalkResult = {
+	expectedProbes: number;
+	expectedCost: number;
+	/** Chance that the walk ends without locating the fault. */
+	unlocatedMass: number;
+};
+
+/**
+ * The point-by-point walk a person makes without a plan: take the probes in the given order
+ * (along the feed from the battery), drop the suspects each reading rules out, and stop once
+ * the remaining suspects lie within the true suspect's ambiguity class (located as far as a
+ * meter can). Readings are taken to be exactly as predicted for the true suspect.
+ */
+export function pointByPointWalk(table: PredictionTable, order: readonly string[], options: Pick<PlanOptions, 'weights'> = {}): WalkResult {
+	checkTable(table, 'pointByPointWalk');
+	const w = startWeights(table, options.weights, 'pointByPointWalk');
+	const seq = order.map((id, i) => {
+		const p = table.probes.findIndex((q) => q.id === id);
+		if (p < 0) throw new Error(`pointByPointWalk: order[${i}] names probe "${id}", which is not in the table`);
+		return p;
+	});
+	const members = table.suspects.map((_, s) => s).filter((s) => w[s] > 0);
+	const classOf = new Int32Array(table.suspects.length).fill(-1);
+	ambiguityClasses(subTable(table, members)).forEach((c, k) => c.forEach((i) => (classOf[members[i]] = k)));
+	let expectedProbes = 0;
+	let expectedCost = 0;
+	let unlocatedMass = 0;
+	for (const s of members) {
+		let left = members;
+		let taken = 0;
+		let spent = 0;
+		const located = () => left.every((t) => classOf[t] === classOf[s]);
+		for (const p of seq) {
+			if (located()) break;
+			taken++;
+			spent += table.probes[p].cost;
+			const x = table.readings[p][s];
+			if (x === null) continue;
+			left = left.filter((t) => {
+				const r = table.readings[p][t];
+				return r === null || consistent(table.probes[p].tolerance, r, x);
+			});
+		}
+		if (!located()) unlocatedMass += w[s];
+		expectedProbes += w[s] * taken;
+		expectedCost += w[s] * spent;
+	}
+	return { expectedProbes, expectedCost, unlocatedMass };
+}
+
+/** The table restricted to some suspects (in the given order). */
+export function subTable(table: PredictionTable, suspects: readonly number[]): PredictionTable {
+	return {
+		suspects: suspects.map((s) => table.suspects[s]),
+		probes: table.probes,
+		readings: table.readings.map((row) => suspects.map((s) => row[s]))
+	};
+}
+
+// ---- Planning again from real readings ----
+
+export type ReadingTaken = { probe: string; reading: number } | { probe: string; unreachable: true };
+
+export type ReplanResult = {
+	/** Suspects still in play with their chances (renormalised), likeliest first. */
+	remaining: { suspect: string; chance: number }[];
+	/** Suspects ruled out, and by which reading. */
+	dropped: { suspect: string; probe: string; reading: number }[];
+	/** Readings no remaining suspect predicts; they were not used to rule anything out. */
+	unexplained: { probe: string; reading: number; reason: 'no suspect predicts it' | 'contradicts the earlier readings' }[];
+	/** Probes reported as not reachable; the new plan does without them. */
+	unavailable: string[];
+	/** The table of the remaining suspects, which the new plan's indices refer to. */
+	table: PredictionTable;
+	/** The new plan from here (a single leaf when one suspect or one class is left). */
+	plan: Plan;
+};
+
+/**
+ * Filters the suspects by the readings taken so far and plans again from the ones left. A
+ * reading rules out every suspect whose prediction it is not within tolerance of (suspects
+ * with no defined reading stay, at weight ÷ K as in the plan). A reading that no remaining
+ * suspect predicts is reported and left out. A probe reported unreachable is left out of the
+ * new plan.
+ */
+export function replan(table: PredictionTable, readingsTaken: readonly ReadingTaken[], options: PlanOptions = {}): ReplanResult {
+	checkTable(table, 'replan');
+	const w = startWeights(table, options.weights, 'replan');
+	const unavailable = new Set(options.exclude ?? []);
+	const dropped: ReplanResult['dropped'] = [];
+	const unexplained: ReplanResult['unexplained'] = [];
+	readingsTaken.forEach((taken, i) => {
+		const p = table.probes.findIndex((q) => q.id === taken?.probe);
+		if (p < 0) throw new Error(`replan: readingsTaken[${i}].probe names probe "${taken?.probe}", which is not in the table`);
+		if ('unreachable' in taken) {
+			unavailable.add(taken.probe);
+			return;
+		}
+		const x = taken.reading;
+		if (!Number.isFinite(x)) throw new Error(`replan: readingsTaken[${i}].reading must be a finite number, got ${x}`);
+		const tol = table.probes[p].tolerance;
+		const row = table.readings[p];
+		const live = table.suspects.map((_, s) => s).filter((s) => w[s] > 0);
+		const fits = live.filter((s) => row[s] !== null && consistent(tol, row[s]!, x));
+		const unread = live.filter((s) => row[s] === null);
+		if (fits.length + unread.length === 0) {
+			const anyone = table.suspects.some((_, s) => row[s] !== null && consistent(tol, row[s]!, x));
+			unexplained.push({ probe: taken.probe, reading: x, reason: anyone ? 'contradicts the earlier readings' : 'no suspect predicts it' });
+			return;
+		}
+		const K = binReadings(row, tol, live).bins.length;
+		const keep = new Set(fits);
+		for (const s of live) {
+			if (row[s] === null) w[s] /= Math.max(1, K);
+			else if (!keep.has(s)) {
+				w[s] = 0;
+				dropped.push({ suspect: table.suspects[s].id, probe: taken.probe, reading: x });
+			}
+		}
+	});
+	const members = table.suspects.map((_, s) => s).filter((s) => w[s] > 0);
+	const total = members.reduce((a, s) => a + w[s], 0);
+	const sub = subTable(table, members);
+	const plan = buildPlan(sub, { ...options, exclude: [...unavailable], weights: members.map((s) => w[s] / total) });
+	return {
+		remaining: members.map((s) => ({ suspect: table.suspects[s].id, chance: w[s] / total })).sort((a, b) => b.chance - a.chance),
+		dropped,
+		unexplained,
+		unavailable: [...unavailable],
+		table: sub,
+		plan
+	};
+}
