@@ -31,9 +31,9 @@ import { checkTable, probeOutcomes, type PredictionTable } from './outcomes';
 export type CoverOptions = {
 	/** Probe ids that cannot be used. */
 	exclude?: readonly string[];
-	/** Largest number of distinct suspect classes for which the exact search is tried (default 64). */
+	/** Largest number of distinct suspect classes for which the exact search is tried (default 128). */
 	exactLimit?: number;
-	/** Search nodes before the exact search gives up proving optimality (default 100 000). */
+	/** Search nodes before the exact search gives up proving optimality (default 20 000). */
 	maxNodes?: number;
 };
 
@@ -225,8 +225,8 @@ function availability(table: PredictionTable, exclude: readonly string[] | undef
  */
 export function minimalProbeSet(table: PredictionTable, options: CoverOptions = {}): CoverResult {
 	checkTable(table, 'minimalProbeSet');
-	const exactLimit = options.exactLimit ?? 64;
-	const maxNodes = options.maxNodes ?? 100_000;
+	const exactLimit = options.exactLimit ?? 128;
+	const maxNodes = options.maxNodes ?? 20_000;
 	const available = availability(table, options.exclude, 'minimalProbeSet');
 	const red = reduce(table, available);
 	const n = table.suspects.length;

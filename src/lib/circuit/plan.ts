@@ -348,15 +348,24 @@ export function buildPlan(table: PredictionTable, options: PlanOptions = {}): Pl
 		at.place(step);
 	}
 	const tree = root as unknown as PlanNode;
-	let expectedProbes = 0;
-	let expectedCost = 0;
+	return { root: tree, steps, ...expectedProbes(tree) };
+}
+
+/**
+ * Expected number of probes and cost of a plan under the suspects' chances: Σ over leaves of
+ * (chance of ending there) × (probes, cost on the way). Unresolved leaves count what was spent
+ * up to them, so a cut plan's figures are lower bounds on what finishing it takes.
+ */
+export function expectedProbes(root: PlanNode): { expectedProbes: number; expectedCost: number; unresolvedMass: number } {
+	let probes = 0;
+	let cost = 0;
 	let unresolvedMass = 0;
-	for (const leaf of leaves(tree)) {
-		expectedProbes += leaf.mass * leaf.depth;
-		expectedCost += leaf.mass * leaf.spent;
+	for (const leaf of leaves(root)) {
+		probes += leaf.mass * leaf.depth;
+		cost += leaf.mass * leaf.spent;
 		if (leaf.kind === 'unresolved') unresolvedMass += leaf.mass;
 	}
-	return { root: tree, steps, expectedProbes, expectedCost, unresolvedMass };
+	return { expectedProbes: probes, expectedCost: cost, unresolvedMass };
 }
 
 /** The leaves of a plan, depth first. */
