@@ -5,9 +5,15 @@ import { close } from '$lib/server/db';
 
 // adapter-node stops taking requests on SIGTERM/SIGINT, then emits this; the idle database pool
 // would otherwise keep the process alive for ever.
-process.on('sveltekit:shutdown', () => {
-	void close();
-});
+// (Registered once: in development this module is re-run on every change.)
+const registered = Symbol.for('loomwright.closeOnShutdown');
+const flags = globalThis as typeof globalThis & { [registered]?: true };
+if (!flags[registered]) {
+	flags[registered] = true;
+	process.on('sveltekit:shutdown', () => {
+		void close();
+	});
+}
 
 export const handle: Handle = async ({ event, resolve }) => {
 	const { user, session: current } = await session.read(event.cookies);

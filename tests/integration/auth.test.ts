@@ -166,12 +166,21 @@ describe('sign-in throttling', () => {
 		expect(row.failures).toBe(1);
 	});
 
-	it('starts the account’s count again after a successful sign-in', async () => {
+	it('starts the account’s count again after a successful sign-in and clears stale rows', async () => {
 		const email = unique('recovers');
-		await accounts.createAccount({ email, displayName: 'Recovers', password: 'coil-ballast-wire' });
+		const created = await accounts.createAccount({ email, displayName: 'Recovers', password: 'coil-ballast-wire' });
+		if (!created.ok) throw new Error(created.message);
+		const twoDaysAgo = new Date(Date.now() - 2 * 24 * 3600 * 1000);
+		const staleKey = `address:stale-${crypto.randomUUID()}`;
+		await db.insert(signInThrottle).values({ key: staleKey, failures: 3, windowStartedAt: twoDaysAgo, lastFailureAt: twoDaysAgo });
+		const expiredId = `expired-${crypto.randomUUID()}`;
+		await db.insert(sessions).values({ id: expiredId, userId: created.user.id, expiresAt: twoDaysAgo });
+
 		await form('/signin', { email, password: 'not-it' });
 		await signIn(email, 'coil-ballast-wire');
 		expect(await db.select().from(signInThrottle).where(like(signInThrottle.key, `account:${email}`))).toHaveLength(0);
+		expect(await db.select().from(signInThrottle).where(eq(signInThrottle.key, staleKey))).toHaveLength(0);
+		expect(await db.select().from(sessions).where(eq(sessions.id, expiredId))).toHaveLength(0);
 	});
 });
 

@@ -85,6 +85,7 @@ export async function signIn(emailInput: string, password: string, address: stri
 	// Told only to someone who knows the password, so it reveals nothing to a guesser.
 	if (user.disabled) return { ok: false, reason: 'disabled', status: 403, message: DISABLED_MESSAGE };
 	await throttle.clear(keys[0].key);
+	await throttle.prune();
 	return { ok: true, user };
 }
 

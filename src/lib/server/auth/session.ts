@@ -1,6 +1,9 @@
 // Starting, reading and ending a signed-in session on a request.
 import type { Cookies } from '@sveltejs/kit';
+import { and, eq, lt } from 'drizzle-orm';
 import type { Cookie } from 'lucia';
+import { db } from '../db';
+import { sessions } from '../db/schema';
 import { lucia } from './lucia';
 
 function write(cookies: Cookies, cookie: Cookie): void {
@@ -14,6 +17,8 @@ function write(cookies: Cookies, cookie: Cookie): void {
 export async function start(cookies: Cookies, userId: string): Promise<void> {
 	const previous = cookies.get(lucia.sessionCookieName);
 	if (previous) await lucia.invalidateSession(previous);
+	// Lucia never removes expired rows by itself; an account's own are cleared as it signs in.
+	await db.delete(sessions).where(and(eq(sessions.userId, userId), lt(sessions.expiresAt, new Date())));
 	const session = await lucia.createSession(userId, {});
 	write(cookies, lucia.createSessionCookie(session.id));
 }

@@ -1,6 +1,6 @@
 // Failed sign-in counters in PostgreSQL (app servers are stateless; every server sees the same
 // counts). The schedule itself is the pure throttle-schedule module.
-import { eq, inArray, sql } from 'drizzle-orm';
+import { eq, inArray, lt, sql } from 'drizzle-orm';
 import { db } from '../db';
 import { signInThrottle } from '../db/schema';
 import {
@@ -59,6 +59,11 @@ export async function recordFailure(keys: ThrottleKey[], now = new Date()): Prom
 				}
 			});
 	}
+}
+
+/** Forgets counters untouched for a day (every policy's window is shorter), so the table stays small. */
+export async function prune(now = new Date()): Promise<void> {
+	await db.delete(signInThrottle).where(lt(signInThrottle.lastFailureAt, new Date(now.getTime() - 24 * 60 * 60 * 1000)));
 }
 
 /** After a successful sign-in the account's counter starts again (the address's does not). */
