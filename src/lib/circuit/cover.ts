@@ -150,14 +150,21 @@ function reduce(table: PredictionTable, available: boolean[]): Reduced {
 			} else parent[find(i)] = find(j);
 		}
 	const words = Math.max(1, Math.ceil(pairs.length / 32));
+	// Pairs across two bins of a probe are exactly the pairs it separates: enumerate those
+	// rather than testing every pair against every probe.
 	const sets = labels.map((row, p) => {
 		const set = new Uint32Array(words);
 		if (!available[p]) return set;
-		for (let e = 0; e < pairs.length; e++) {
-			const a = row[pairs[e][0]];
-			const b = row[pairs[e][1]];
-			if (a >= 0 && b >= 0 && a !== b) set[e >>> 5] |= 1 << (e & 31);
-		}
+		const bins: number[][] = [];
+		for (let i = 0; i < R; i++) if (row[i] >= 0) (bins[row[i]] ??= []).push(i);
+		const full = bins.filter((b) => b !== undefined);
+		for (let k = 0; k < full.length; k++)
+			for (let l = k + 1; l < full.length; l++)
+				for (const i of full[k])
+					for (const j of full[l]) {
+						const e = i < j ? pairIndex[i * R + j] : pairIndex[j * R + i];
+						set[e >>> 5] |= 1 << (e & 31);
+					}
 		return set;
 	});
 	const groupOf = Int32Array.from({ length: R }, (_, i) => find(i));
