@@ -5,6 +5,7 @@ import {
 	bigserial,
 	boolean,
 	check,
+	doublePrecision,
 	index,
 	integer,
 	jsonb,
@@ -122,7 +123,40 @@ export const signInThrottle = pgTable('sign_in_throttle', {
 	lastFailureAt: timestamp('last_failure_at', { withTimezone: true, mode: 'date' }).notNull()
 });
 
+// Scanned manual pages traced under a diagram's drawing. The image bytes live in S3-compatible
+// storage under `storageKey`; this row holds what the app needs to list, serve and place them.
+export const manualPages = pgTable(
+	'manual_pages',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		diagramId: uuid('diagram_id')
+			.notNull()
+			.references(() => diagrams.id, { onDelete: 'cascade' }),
+		ownerId: text('owner_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		storageKey: text('storage_key').notNull(),
+		contentType: text('content_type').notNull(),
+		byteSize: integer('byte_size').notNull(),
+		originalName: text('original_name').notNull().default(''),
+		pageOrder: integer('page_order').notNull().default(0),
+		// Tracing layer: how the page sits under the canvas (flow coordinates).
+		opacity: doublePrecision('opacity').notNull().default(0.5),
+		scale: doublePrecision('scale').notNull().default(1),
+		offsetX: doublePrecision('offset_x').notNull().default(0),
+		offsetY: doublePrecision('offset_y').notNull().default(0),
+		locked: boolean('locked').notNull().default(false),
+		createdAt: createdAt()
+	},
+	(t) => [
+		index('manual_pages_diagram_idx').on(t.diagramId, t.pageOrder),
+		uniqueIndex('manual_pages_storage_key').on(t.storageKey),
+		check('manual_pages_content_type', sql`${t.contentType} in ('image/png', 'image/jpeg', 'image/webp')`)
+	]
+);
+
 export type User = typeof users.$inferSelect;
 export type Vehicle = typeof vehicles.$inferSelect;
 export type Diagram = typeof diagrams.$inferSelect;
 export type DiagramRevision = typeof diagramRevisions.$inferSelect;
+export type ManualPage = typeof manualPages.$inferSelect;
