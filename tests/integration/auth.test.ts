@@ -111,6 +111,29 @@ describe('sign-up, sign-in and the session cookie', () => {
 	});
 });
 
+describe('sliding expiry', () => {
+	it('a session used in the second half of its 30 days is extended and its cookie sent again', async () => {
+		const email = unique('slide');
+		await accounts.createAccount({ email, displayName: 'Regular', password: 'tachometer-drive-cable' });
+		const cookie = await signIn(email, 'tachometer-drive-cable');
+		const id = cookie.split('=')[1];
+		const tenDays = new Date(Date.now() + 10 * 24 * 3600 * 1000);
+		await db.update(sessions).set({ expiresAt: tenDays }).where(eq(sessions.id, id));
+
+		const res = await get('/garage', cookie);
+		expect(res.status).toBe(200);
+		// lucia 3 extends a session with less than half its lifetime left (lucia docs, "Session lifetime").
+		const refreshed = sessionCookie(res)!;
+		expect(refreshed.pair).toBe(cookie);
+		expect(refreshed.line).toMatch(/Max-Age=2592000/);
+		const [row] = await db.select().from(sessions).where(eq(sessions.id, id));
+		expect(row.expiresAt.getTime()).toBeGreaterThan(Date.now() + 29 * 24 * 3600 * 1000);
+
+		// A session with most of its life left is not re-sent on every request.
+		expect(sessionCookie(await get('/garage', cookie))).toBeNull();
+	});
+});
+
 describe('sign-out', () => {
 	it('ends the session on the server, only by POST, and only from this site', async () => {
 		const email = unique('signout');
