@@ -1,7 +1,8 @@
 /**
  * Benchmark of probe selection and planning (not a test): generated harness tables of 40, 100
- * and 400 suspects (src/lib/circuit/testing/tables.ts; suspects are a random sample of the
- * harness's single faults, spread over the whole harness).
+ * and 400 suspects (src/lib/circuit/testing/tables.ts): suspects sampled from the harness's
+ * single faults over the whole harness ("spread"), and 40 suspects that explain one symptom
+ * ("symptom": the parts on one fuse misbehave).
  *
  * For each: the minimal probe set, exact (branch and bound) and greedy (Chvátal's bound), with
  * times and costs; the plan's build time; the plan's expected probes and cost against the
@@ -27,7 +28,10 @@ function timed<T>(fn: () => T): { value: T; ms: number } {
 }
 
 export async function run(): Promise<void> {
-	const cases = [
+	// "spread": suspects sampled over the whole harness; "symptom": the faults explaining one
+	// fuse's parts misbehaving, with 120 of the harness's probes, walked along that fuse's feed.
+	const cases: { suspects: number; seeds: number[]; symptom?: boolean; probes?: number }[] = [
+		{ suspects: 40, seeds: [1, 2, 3, 4, 5], symptom: true, probes: 120 },
 		{ suspects: 40, seeds: [1, 2, 3, 4, 5] },
 		{ suspects: 100, seeds: [1, 2, 3] },
 		{ suspects: 400, seeds: [1] }
@@ -37,6 +41,7 @@ export async function run(): Promise<void> {
 	buildPlan(harnessTable(rng(99), { suspects: 30 }).table);
 
 	const header = [
+		'kind',
 		'suspects',
 		'probes',
 		'seed',
@@ -62,7 +67,7 @@ export async function run(): Promise<void> {
 	const rows: string[][] = [];
 	for (const c of cases) {
 		for (const seed of c.seeds) {
-			const { table, walkOrder } = harnessTable(rng(seed), { suspects: c.suspects });
+			const { table, walkOrder } = harnessTable(rng(seed), { suspects: c.suspects, symptom: c.symptom, probes: c.probes });
 			const exact = timed(() => minimalProbeSet(table));
 			const greedy = timed(() => minimalProbeSet(table, { exactLimit: 0 }));
 			const plan = timed(() => buildPlan(table));
@@ -71,6 +76,7 @@ export async function run(): Promise<void> {
 			const walk = pointByPointWalk(table, walkOrder);
 			const e = exact.value;
 			rows.push([
+				c.symptom ? 'symptom' : 'spread',
 				String(table.suspects.length),
 				String(table.probes.length),
 				String(seed),

@@ -8,7 +8,7 @@
 //   small nodal calculation of its own. The structure, not the exact volts, is what matters:
 //   faults upstream change everything downstream, shared earths link branches, and some
 //   suspects (shorts behind one fuse) cannot be told apart with a meter.
-import type { PredictionTable, Tolerance } from '../outcomes';
+import { toldApart, type PredictionTable, type Tolerance } from '../outcomes';
 
 /**
  * Xorshift32 (Marsaglia 2003, "Xorshift RNGs", J. Stat. Softw. 8(14), shifts 13/17/5): a
@@ -101,7 +101,17 @@ const OHMS: Tolerance = { abs: 0.3, rel: 0.008 };
 // practice); the numbers themselves are invented.
 const WEIGHT = { earth: 3, connector: 2.5, switch: 2, fuse: 1.5, part: 1.5, stabilizer: 1.5, wire: 0.5, short: 0.7 };
 
-export type HarnessOptions = { suspects: number; probes?: number };
+export type HarnessOptions = {
+	suspects: number;
+	probes?: number;
+	/**
+	 * Take the suspects from the faults that explain one symptom (every part on one fuse
+	 * misbehaving: feed or earth terminal off its healthy reading), as the symptom marks of
+	 * DESIGN.md §7 would, instead of from the whole harness. The harness is made larger so that
+	 * enough faults explain it; fewer suspects are returned if fewer do.
+	 */
+	symptom?: boolean;
+};
 export type HarnessTable = {
 	table: PredictionTable;
 	/** Voltage probes in the order of a point-by-point walk from the battery along the feed. */
@@ -110,7 +120,7 @@ export type HarnessTable = {
 
 /** A made-up harness with `suspects` single-fault suspects (sampled from all it has). */
 export function harnessTable(random: () => number, o: HarnessOptions): HarnessTable {
-	const loadsWanted = Math.max(4, Math.round(o.suspects / 2.4));
+	const loadsWanted = Math.max(4, Math.round(o.suspects / (o.symptom ? 0.9 : 2.4)));
 	const nodes: Node[] = [];
 	const edges: Edge[] = [];
 	const loads: Load[] = [];
@@ -182,7 +192,34 @@ export function harnessTable(random: () => number, o: HarnessOptions): HarnessTa
 	});
 	for (const state of ['stuck-open', 'stuck-closed', 'low'] as const)
 		faults.push({ fault: { kind: 'stabilizer', state }, id: `stab:${state}`, label: `stabilizer ${state.replace('-', ' ')}`, weight: WEIGHT.stabilizer });
-	const chosen = sample(random, faults, o.suspects);
+	const circuit: Circuit = { nodes, edges, loads, earthCount, stab, fuseOuts: branchNodes.map((b) => b[0]) };
+	let pool = faults;
+	// Points a person walks: every point, or with a symptom those on the way to the marked parts.
+	let onWalk = (_n: number): boolean => true;
+	if (o.symptom) {
+		// The fuse (other than the gauges') with the most parts; its parts are the ones marked.
+		const fuseOf = (n: number): number => {
+			for (; n > 0; n = edges[nodes[n].parent].from) if (edges[nodes[n].parent].kind === 'fuse') return branchNodes.findIndex((b) => b[0] === n);
+			return -1;
+		};
+		const counts = branchNodes.map((_, f) => loads.filter((l) => fuseOf(l.node) === f).length);
+		const f = counts.reduce((best, c, i) => (i > 0 && c > counts[best] ? i : best), counts.length > 1 ? 1 : 0);
+		const marked = loads.map((l, i) => i).filter((i) => fuseOf(loads[i].node) === f);
+		const way = new Set<number>();
+		for (const i of marked) for (let n = loads[i].node; ; n = edges[nodes[n].parent].from) {
+			way.add(n);
+			if (n === 0) break;
+		}
+		onWalk = (n) => way.has(n);
+		const healthy = solveHarness(circuit, { kind: 'none' });
+		pool = faults.filter(({ fault }) => {
+			const s = solveHarness(circuit, fault);
+			return marked.some(
+				(i) => toldApart(VOLTS, s.volts[loads[i].node], healthy.volts[loads[i].node]) || toldApart(VOLTS, s.earthTerminal[i], healthy.earthTerminal[i])
+			);
+		});
+	}
+	const chosen = sample(random, pool, o.suspects);
 
 	// ---- Probes ----
 	type Probe = { id: string; label: string; cost: number; tolerance: Tolerance; unit: string; read: (s: Solution) => number };
@@ -222,7 +259,6 @@ export function harnessTable(random: () => number, o: HarnessOptions): HarnessTa
 	);
 	const keptProbes = o.probes !== undefined ? sample(random, probes, o.probes) : probes;
 
-	const circuit: Circuit = { nodes, edges, loads, earthCount, stab, fuseOuts: branchNodes.map((b) => b[0]) };
 	const solutions = chosen.map((f) => solveHarness(circuit, f.fault));
 	const table: PredictionTable = {
 		suspects: chosen.map((f) => ({ id: f.id, label: f.label, prior: f.weight })),
@@ -232,6 +268,7 @@ export function harnessTable(random: () => number, o: HarnessOptions): HarnessTa
 	// Walk: depth first from the battery, each point's volts, then the part's earth terminal.
 	const walk: string[] = [];
 	const visit = (n: number): void => {
+		if (!onWalk(n)) return;
 		walk.push(`v:${n}`);
 		if (nodes[n].load >= 0) walk.push(`ve:${nodes[n].load}`);
 		for (const e of nodes[n].children) visit(edges[e].to);
