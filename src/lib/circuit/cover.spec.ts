@@ -158,6 +158,14 @@ describe('minimalProbeSet', () => {
 		expect(minimalProbeSet(table, { exactLimit: 0 }).cost).toBeGreaterThanOrEqual(r.cost - 1e-9);
 	});
 
+	it('finishes exactly on 40 suspects that explain one symptom, with 120 probes', () => {
+		const { table } = harnessTable(rng(4), { suspects: 40, symptom: true, probes: 120 });
+		expect(table.probes.length).toBe(120);
+		const r = minimalProbeSet(table);
+		expect(r.exact).toBe(true);
+		expect(coversAll(table, r.probeIndices)).toBe(true);
+	});
+
 	it('rejects an unknown probe id in exclude, and a bad table with the path', () => {
 		const t = randomTable(rng(3), { suspects: 3, probes: 2 });
 		expect(() => minimalProbeSet(t, { exclude: ['nope'] })).toThrow(/minimalProbeSet: exclude names probe "nope"/);

@@ -17,9 +17,12 @@
 // - Exact: depth-first branch and bound. It branches on the uncovered pair with the fewest
 //   separating probes (one branch per such probe, excluding the earlier ones, so branches are
 //   disjoint) and prunes with the larger of two lower bounds: a dual-feasible bound of the
-//   set-cover LP (each pair priced at its cheapest cost per newly separated pair, then raised by
-//   the leftover slack) and a counting bound (q suspects that must all be told apart by probes
-//   with at most k outcomes among them need at least ⌈log_k q⌉ further probes).
+//   set-cover LP by dual ascent (pairs with the fewest separating probes first, each priced at
+//   the least slack left among its probes) and a counting bound (q suspects that must all be
+//   told apart by probes with at most k outcomes among them need at least ⌈log_k q⌉ further
+//   probes). Probes that are the only ones left for some pair are taken without branching, and
+//   probes whose reduced cost alone lifts the bound past the best cover are set aside
+//   (reduced-cost fixing, as in LP-based branch and bound).
 // - Greedy beyond a size limit, or when the search exceeds its node budget: repeatedly take
 //   the probe of least cost per newly separated pair (Chvátal 1979, "A greedy heuristic for the
 //   set-covering problem", Math. Oper. Res. 4(3):233–235), then drop probes made redundant.
