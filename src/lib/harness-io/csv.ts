@@ -206,6 +206,8 @@ export interface CsvRecord {
 	cells: string[];
 	/** A comment line (`#` first). */
 	comment?: boolean;
+	/** A quoted field ran to the end of the file: the cells mean nothing. */
+	broken?: boolean;
 }
 
 /** Splits text into records of cells. Problems with quoting are issues on the record's row. */
@@ -231,6 +233,7 @@ export function parseRecords(text: string, separator: Separator): { records: Csv
 		const cells: string[] = [];
 		let cell = '';
 		let done = false;
+		let broken = false;
 		while (!done) {
 			if (i >= n) {
 				cells.push(cell);
@@ -258,6 +261,7 @@ export function parseRecords(text: string, separator: Separator): { records: Csv
 					i++;
 				}
 				if (!closed) {
+					broken = true;
 					issues.push({ row: started, column: `field ${cells.length + 1}`, message: 'a quoted field is never closed, so the rest of the file was read into it', expected: 'a closing double quote (write a quote inside a field as "")' });
 				} else if (i < n && text[i] !== separator && text[i] !== '\n' && text[i] !== '\r') {
 					let stray = '';
@@ -284,7 +288,7 @@ export function parseRecords(text: string, separator: Separator): { records: Csv
 			cell += c;
 			i++;
 		}
-		records.push({ row, cells });
+		records.push(broken ? { row, cells, broken } : { row, cells });
 	}
 	return { records, issues };
 }
@@ -453,6 +457,7 @@ export function readWireList(input: string | Uint8Array, options: ReadOptions = 
 			sawAnySection = true;
 		}
 		dataRows++;
+		if (rec.broken) continue; // already reported; its cells are the rest of the file
 		const problems: CsvIssue[] = [];
 		const extra = cells.slice(section.width).findIndex((c) => c.trim() !== '');
 		if (extra !== -1) {

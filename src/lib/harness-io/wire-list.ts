@@ -172,7 +172,7 @@ export function planImport(doc: HarnessDocument, table: WireListTable): ImportPl
 			const d = drafts.get(key)!;
 			if (!d.terminals.includes(terminal)) {
 				d.terminals.push(terminal);
-				if (d.existing || d.partRow !== undefined) summary.addedTerminals.push(`${key} ${terminal}`);
+				if (d.existing) summary.addedTerminals.push(`${key} ${terminal}`);
 			}
 		}
 	}
