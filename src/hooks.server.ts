@@ -1,5 +1,5 @@
 // Puts the signed-in account and its session on event.locals, and nothing else of note.
-import { redirect, type Handle, type HandleServerError } from '@sveltejs/kit';
+import { json, redirect, type Handle, type HandleServerError } from '@sveltejs/kit';
 import * as session from '$lib/server/auth/session';
 import { close } from '$lib/server/db';
 
@@ -32,8 +32,24 @@ export const handle: Handle = async ({ event, resolve }) => {
 		const next = event.url.pathname + event.url.search;
 		redirect(303, `/signin?next=${encodeURIComponent(next)}`);
 	}
-	return resolve(event);
+	const response = await resolve(event);
+	if (event.url.pathname.startsWith('/api/')) return asApiError(response);
+	return response;
 };
+
+// The API answers every error in its one JSON shape, { error }, including those SvelteKit makes
+// itself: 404 for an unknown address and 405 for a method an endpoint does not have.
+function asApiError(response: Response): Response {
+	if (response.status < 400 || response.headers.get('content-type')?.includes('application/json')) return response;
+	const words: Record<number, string> = {
+		404: 'There is no such address in the Loomwright API.',
+		405: 'This address does not take that method.'
+	};
+	const answer = json({ error: words[response.status] ?? 'The request could not be handled.' }, { status: response.status });
+	const allow = response.headers.get('allow');
+	if (allow) answer.headers.set('allow', allow);
+	return answer;
+}
 
 export const handleError: HandleServerError = ({ error, event, status }) => {
 	if (status !== 404) console.error('[server]', event.request.method, event.url.pathname, error);

@@ -241,6 +241,19 @@ describe('vehicles', () => {
 	});
 });
 
+describe('errors SvelteKit makes itself', () => {
+	it('come in the same JSON shape: unknown address 404, wrong method 405 with Allow', async () => {
+		expect(await call('GET', '/api/no-such-thing', owner.cookie)).toEqual({
+			status: 404,
+			body: { error: 'There is no such address in the Loomwright API.' }
+		});
+		const res = await fetch(`${baseUrl()}/api/vehicles`, { method: 'PUT', headers: { cookie: owner.cookie } });
+		expect(res.status).toBe(405);
+		expect(res.headers.get('allow')).toContain('POST');
+		expect(await res.json()).toEqual({ error: 'This address does not take that method.' });
+	});
+});
+
 describe('health', () => {
 	it('reports the database up', async () => {
 		const res = await call('GET', '/api/health', null);
