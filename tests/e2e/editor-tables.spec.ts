@@ -33,7 +33,7 @@ test('editing a code in the wire list changes the drawn stripe', async ({ page }
 	await page.getByLabel('Show wires of code').selectOption('G/B');
 	await expect(table.locator('tbody tr')).toHaveCount(1);
 
-	const cell = table.getByRole('textbox', { name: 'Code of wire G/B from 7 2 to 12 feed' });
+	const cell = table.getByRole('combobox', { name: 'Code of wire G/B from 7 2 to 12 feed' });
 	await cell.fill('r/w');
 	await cell.press('Enter');
 	await expect(drawn).toHaveAttribute('data-code', 'R/W');
@@ -43,7 +43,7 @@ test('editing a code in the wire list changes the drawn stripe', async ({ page }
 	// Sort the component key by key number: manual order 3, 7, 12 (not 12, 3, 7).
 	await page.getByRole('button', { name: 'Component key' }).click();
 	const key = page.getByRole('table', { name: 'Component key' });
-	await expect(key.locator('tbody tr td:first-child input')).toHaveValues(['3', '7', '12']);
+	await expect.poll(() => key.locator('tbody tr td:first-child input').evaluateAll((els) => els.map((e) => (e as HTMLInputElement).value))).toEqual(['3', '7', '12']);
 	await key.getByRole('textbox', { name: 'Label of part 12' }).fill('Speedometer lamp');
 	await key.getByRole('textbox', { name: 'Label of part 12' }).press('Enter');
 	await expect(page.locator('[data-part-id="lamp"] .label')).toHaveText('Speedometer lamp');
