@@ -42,6 +42,7 @@ export default defineConfig({
 			ORIGIN: origin,
 			NODE_ENV: 'production',
 			LOOM_DEV_MAIL: '1',
+			BODY_SIZE_LIMIT: '16M',
 			SMTP_PORT: process.env.SMTP_PORT ?? '2625',
 			MAIL_API_PORT: process.env.MAIL_API_PORT ?? '2626',
 			S3_ENDPOINT: process.env.S3_ENDPOINT ?? 'http://127.0.0.1:4669'

@@ -1,4 +1,5 @@
-// Demo data: a demo restorer, a site admin, one invented vehicle and one empty diagram.
+// Demo data: a demo restorer, a site admin, one invented vehicle and its drawn harness
+// (the circuit core's invented demo harness, 52 parts).
 // Idempotent: run it again and it finds what is there instead of adding copies.
 // Every name here is invented (the maker, the model, the people).
 import { and, eq } from 'drizzle-orm';
@@ -6,6 +7,7 @@ import * as accounts from '../src/lib/server/auth/accounts';
 import { db } from '../src/lib/server/db';
 import { diagrams, vehicles, type User } from '../src/lib/server/db/schema';
 import * as diagramStore from '../src/lib/server/garage/diagrams';
+import { demoHarness } from '../src/lib/circuit/demo';
 
 export const DEMO = { email: 'demo@loomwright.test', password: 'tracer-stripe-demo', displayName: 'Demo Restorer' };
 export const ADMIN = { email: 'admin@loomwright.test', password: 'earth-strap-admin', displayName: 'Site admin' };
@@ -44,12 +46,12 @@ async function main() {
 			.returning()
 	)[0];
 
-	const title = 'Instruments and warning lamps';
+	const title = 'Complete harness';
 	const [existing] = await db
 		.select({ id: diagrams.id })
 		.from(diagrams)
 		.where(and(eq(diagrams.vehicleId, kestrel.id), eq(diagrams.title, title)));
-	if (!existing) await diagramStore.create(kestrel, demo.id, title);
+	if (!existing) await diagramStore.create(kestrel, demo.id, title, demoHarness());
 
 	console.log('[seed] demo account  %s / %s', DEMO.email, DEMO.password);
 	console.log('[seed] site admin    %s / %s', ADMIN.email, ADMIN.password);

@@ -15,6 +15,8 @@ export DATABASE_URL
 export SMTP_PORT=${SMTP_PORT:-2525} MAIL_API_PORT=${MAIL_API_PORT:-2526}
 export S3_ENDPOINT=${S3_ENDPOINT:-http://127.0.0.1:4569} S3_DIR=${S3_DIR:-$root/.data/s3}
 export LOOM_DEV_MAIL=${LOOM_DEV_MAIL:-1}
+# A large harness document is bigger than adapter-node's 512 kB default request body.
+export BODY_SIZE_LIMIT=${BODY_SIZE_LIMIT:-16M}
 
 node --import tsx scripts/migrate.ts
 node --import tsx scripts/seed.ts

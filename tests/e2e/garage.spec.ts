@@ -75,8 +75,8 @@ test('the demo account signs in and finds its invented vehicle', async ({ page }
 	await expect(page).toHaveURL(/\/garage$/);
 	await page.getByRole('link', { name: /The Kestrel/ }).click();
 	await expect(page.getByText('1962 Hartwell & Pryce Kestrel Tourer · 12 V · positive earth')).toBeVisible();
-	await page.getByRole('link', { name: /Instruments and warning lamps/ }).click();
-	await expect(page.getByRole('heading', { level: 1, name: 'Instruments and warning lamps' })).toBeVisible();
+	await page.getByRole('link', { name: /Complete harness/ }).click();
+	await expect(page.getByRole('heading', { level: 1, name: 'Complete harness' })).toBeVisible();
 });
 
 test('a bad form shows its errors beside the fields', async ({ page }) => {
