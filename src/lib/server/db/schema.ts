@@ -11,7 +11,9 @@ import {
 	jsonb,
 	pgEnum,
 	pgTable,
+	primaryKey,
 	text,
+	type AnyPgColumn,
 	timestamp,
 	uniqueIndex,
 	uuid
@@ -34,6 +36,10 @@ export const users = pgTable(
 		passwordHash: text('password_hash').notNull(),
 		role: siteRole('role').notNull().default('user'),
 		disabled: boolean('disabled').notNull().default(false),
+		// Set when the account follows the link in its verification e-mail.
+		emailVerifiedAt: timestamp('email_verified_at', { withTimezone: true, mode: 'date' }),
+		// The owner of a diagram gets an e-mail for each new comment unless this is off.
+		notifyComments: boolean('notify_comments').notNull().default(true),
 		createdAt: createdAt()
 	},
 	(t) => [
@@ -50,7 +56,10 @@ export const sessions = pgTable(
 		userId: text('user_id')
 			.notNull()
 			.references(() => users.id, { onDelete: 'cascade' }),
-		expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull()
+		expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
+		// Shown on the account page so a person can tell their sessions apart and end one.
+		createdAt: createdAt(),
+		userAgent: text('user_agent').notNull().default('')
 	},
 	(t) => [index('sessions_user_idx').on(t.userId)]
 );
@@ -92,6 +101,11 @@ export const diagrams = pgTable(
 		document: jsonb('document').notNull(),
 		// Counts accepted document saves; a save must name the revision it edits (409 otherwise).
 		revision: integer('revision').notNull().default(1),
+		// A copy keeps where it came from, as words that survive the original being deleted.
+		basedOnId: uuid('based_on_id'),
+		basedOnTitle: text('based_on_title'),
+		basedOnOwner: text('based_on_owner'),
+		basedOnRevision: integer('based_on_revision'),
 		createdAt: createdAt(),
 		updatedAt: updatedAt()
 	},
@@ -155,7 +169,134 @@ export const manualPages = pgTable(
 	]
 );
 
+// One-time e-mail links: address verification and password reset. Only the SHA-256 of the
+// 256-bit token is kept (OWASP Forgot Password Cheat Sheet: store tokens hashed, single use,
+// short expiry); a link works once because using it deletes the row.
+export const emailTokenPurpose = pgEnum('email_token_purpose', ['verify', 'reset']);
+export const emailTokens = pgTable(
+	'email_tokens',
+	{
+		tokenHash: text('token_hash').primaryKey(),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		purpose: emailTokenPurpose('purpose').notNull(),
+		expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
+		createdAt: createdAt()
+	},
+	(t) => [index('email_tokens_user_idx').on(t.userId, t.purpose)]
+);
+
+export const clubRole = pgEnum('club_role', ['organiser', 'member']);
+export const clubs = pgTable('clubs', {
+	id: uuid('id').primaryKey().defaultRandom(),
+	name: text('name').notNull(),
+	description: text('description').notNull().default(''),
+	createdAt: createdAt()
+});
+
+export const clubMembers = pgTable(
+	'club_members',
+	{
+		clubId: uuid('club_id')
+			.notNull()
+			.references(() => clubs.id, { onDelete: 'cascade' }),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		role: clubRole('role').notNull().default('member'),
+		joinedAt: timestamp('joined_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow()
+	},
+	(t) => [primaryKey({ columns: [t.clubId, t.userId] }), index('club_members_user_idx').on(t.userId)]
+);
+
+export const invitationStatus = pgEnum('invitation_status', ['pending', 'accepted', 'declined']);
+// An invitation is a link token (hashed like the e-mail tokens) sent to one address; it works
+// once, for seven days.
+export const clubInvitations = pgTable(
+	'club_invitations',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		clubId: uuid('club_id')
+			.notNull()
+			.references(() => clubs.id, { onDelete: 'cascade' }),
+		email: text('email').notNull(),
+		tokenHash: text('token_hash').notNull(),
+		invitedBy: text('invited_by').references(() => users.id, { onDelete: 'set null' }),
+		status: invitationStatus('status').notNull().default('pending'),
+		expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
+		createdAt: createdAt()
+	},
+	(t) => [uniqueIndex('club_invitations_token').on(t.tokenHash), index('club_invitations_club_idx').on(t.clubId)]
+);
+
+export const shareLevel = pgEnum('share_level', ['view', 'comment', 'edit']);
+// A diagram shared with one account or with every member of one club.
+export const diagramShares = pgTable(
+	'diagram_shares',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		diagramId: uuid('diagram_id')
+			.notNull()
+			.references(() => diagrams.id, { onDelete: 'cascade' }),
+		userId: text('user_id').references(() => users.id, { onDelete: 'cascade' }),
+		clubId: uuid('club_id').references(() => clubs.id, { onDelete: 'cascade' }),
+		level: shareLevel('level').notNull(),
+		createdAt: createdAt()
+	},
+	(t) => [
+		uniqueIndex('diagram_shares_user').on(t.diagramId, t.userId),
+		uniqueIndex('diagram_shares_club').on(t.diagramId, t.clubId),
+		index('diagram_shares_user_idx').on(t.userId),
+		index('diagram_shares_club_idx').on(t.clubId),
+		check('diagram_shares_one_target', sql`(${t.userId} is null) <> (${t.clubId} is null)`)
+	]
+);
+
+// Read-only links: anyone holding the token may look, never change. Stored hashed.
+export const shareLinks = pgTable(
+	'share_links',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		diagramId: uuid('diagram_id')
+			.notNull()
+			.references(() => diagrams.id, { onDelete: 'cascade' }),
+		tokenHash: text('token_hash').notNull(),
+		label: text('label').notNull().default(''),
+		expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }),
+		revokedAt: timestamp('revoked_at', { withTimezone: true, mode: 'date' }),
+		createdAt: createdAt()
+	},
+	(t) => [uniqueIndex('share_links_token').on(t.tokenHash), index('share_links_diagram_idx').on(t.diagramId)]
+);
+
+export const commentTarget = pgEnum('comment_target', ['diagram', 'part', 'wire']);
+// Comments on a diagram, or on one part or wire of it (by the id in the document); threaded
+// through parentId.
+export const comments = pgTable(
+	'comments',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		diagramId: uuid('diagram_id')
+			.notNull()
+			.references(() => diagrams.id, { onDelete: 'cascade' }),
+		authorId: text('author_id').references(() => users.id, { onDelete: 'set null' }),
+		parentId: uuid('parent_id').references((): AnyPgColumn => comments.id, { onDelete: 'cascade' }),
+		target: commentTarget('target').notNull().default('diagram'),
+		targetId: text('target_id'),
+		body: text('body').notNull(),
+		createdAt: createdAt()
+	},
+	(t) => [index('comments_diagram_idx').on(t.diagramId, t.createdAt)]
+);
+
 export type User = typeof users.$inferSelect;
+export type Club = typeof clubs.$inferSelect;
+export type ClubMember = typeof clubMembers.$inferSelect;
+export type ClubInvitation = typeof clubInvitations.$inferSelect;
+export type DiagramShare = typeof diagramShares.$inferSelect;
+export type ShareLink = typeof shareLinks.$inferSelect;
+export type Comment = typeof comments.$inferSelect;
 export type Vehicle = typeof vehicles.$inferSelect;
 export type Diagram = typeof diagrams.$inferSelect;
 export type DiagramRevision = typeof diagramRevisions.$inferSelect;
