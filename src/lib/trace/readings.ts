@@ -1,0 +1,55 @@
+// What a DMM and a test lamp would show at a terminal in a scenario, in words, computed in the
+// browser by the circuit core (src/lib/circuit/meters.ts).
+import { measureVolts, testLamp, type LampReading, type VoltsReading } from '$lib/circuit/meters';
+import { earthedTerminal } from '$lib/circuit/parts';
+import type { Scenario } from '$lib/circuit/scenario';
+import type { HarnessDocument, Part, TerminalRef } from '$lib/circuit/schema';
+import { senderResistance } from '$lib/circuit/parts';
+
+/** Test lamp bulb the readings assume (a common 5 W probe-lamp bulb; common practice). */
+export const TEST_LAMP_WATTS = 5;
+
+export interface TerminalReading {
+	ref: TerminalRef;
+	volts: VoltsReading;
+	lamp: LampReading;
+	/** "-10.03 V", as a DMM on its 20 V DC range shows it. */
+	voltsText: string;
+	/** "dim (70 % of full brightness)". */
+	lampText: string;
+	/** Where the black lead goes, in words. */
+	blackLead: string;
+}
+
+/** Volts as a 20 V-range DMM shows them: two decimals and the sign (feeds read negative on positive earth). */
+export function formatVolts(v: number): string {
+	const r = Math.round(v * 100) / 100;
+	return `${r === 0 ? '0.00' : r.toFixed(2)} V`;
+}
+
+/** A test lamp's brightness in words; the bands are our own (about a third of rated power looks dim). */
+export function brightnessWords(brightness: number): string {
+	const pct = Math.round(brightness * 100);
+	const word = brightness >= 0.8 ? 'full' : brightness >= 0.3 ? 'dim' : brightness >= 0.02 ? 'very dim' : 'dark';
+	return word === 'dark' ? 'dark (no glow)' : `${word} (${pct} % of full brightness)`;
+}
+
+/** The DMM (10 MΩ, black lead on the battery's earthed post) and a 5 W test lamp at one terminal. */
+export function terminalReading(doc: HarnessDocument, scenario: Scenario, ref: TerminalRef): TerminalReading {
+	const volts = measureVolts(doc, scenario, ref);
+	const lamp = testLamp(doc, scenario, ref, { watts: TEST_LAMP_WATTS });
+	const post = earthedTerminal(doc.vehicle.earth);
+	return {
+		ref,
+		volts,
+		lamp,
+		voltsText: formatVolts(volts.volts),
+		lampText: brightnessWords(lamp.brightness),
+		blackLead: `black lead on the battery's earthed post (${post}, ${doc.vehicle.earth} earth)`
+	};
+}
+
+/** A sender's resistance at a position, for the slider's label. */
+export function senderOhms(part: Extract<Part, { kind: 'sender' }>, position: number): number {
+	return senderResistance(part.params, position);
+}
