@@ -6,6 +6,7 @@ import { visibleDiagrams } from '../access';
 import { db } from '../db';
 import { diagramRevisions, diagrams, users, type Diagram, type Vehicle } from '../db/schema';
 import { newDocument, summarise, type DiagramDocument } from '../documents';
+import * as pages from '../manual-pages';
 
 export function toJson(d: Diagram, withDocument = false) {
 	return {
@@ -93,7 +94,10 @@ export async function save(
 }
 
 export async function remove(id: string): Promise<void> {
+	// Manual pages: their rows go by cascade, their stored files are deleted here (manual-pages.ts).
+	const files = await pages.storageKeysOf([id]);
 	await db.delete(diagrams).where(eq(diagrams.id, id));
+	await pages.removeFiles(files);
 }
 
 /** The latest revisions of a diagram with who saved them, newest first. */

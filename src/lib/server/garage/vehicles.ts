@@ -5,6 +5,7 @@ import { visibleVehicles } from '../access';
 import { db } from '../db';
 import { diagrams, vehicles, type Vehicle } from '../db/schema';
 import type { VehicleInput } from '../forms';
+import * as pages from '../manual-pages';
 
 export type VehicleJson = ReturnType<typeof toJson>;
 
@@ -51,5 +52,8 @@ export async function update(id: string, input: Partial<VehicleInput>): Promise<
 
 /** Deletes the vehicle and, through the foreign keys, its diagrams and their revisions. */
 export async function remove(id: string): Promise<void> {
+	// The vehicle's diagrams go by cascade; their manual pages' stored files are deleted here.
+	const files = await pages.storageKeysOf((await db.select({ id: diagrams.id }).from(diagrams).where(eq(diagrams.vehicleId, id))).map((d) => d.id));
 	await db.delete(vehicles).where(eq(vehicles.id, id));
+	await pages.removeFiles(files);
 }

@@ -1,0 +1,42 @@
+// Files in S3-compatible storage through the AWS SDK (a local s3rver fake in development and
+// tests, a hosted service in production; README "Configuration"). Verbs: put, get, remove.
+//
+// forcePathStyle: the fake (and many S3-compatible services) answer at host/bucket/key, not
+// bucket.host. The checksum settings 'WHEN_REQUIRED': newer SDKs add CRC32 trailers to every
+// upload, which the fake stores as part of the body (STACK.md, "s3rver with the AWS SDK v3").
+import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { config } from './config';
+
+let client: S3Client | null = null;
+
+function s3(): S3Client {
+	client ??= new S3Client({
+		endpoint: config.s3.endpoint,
+		region: config.s3.region,
+		forcePathStyle: config.s3.forcePathStyle,
+		credentials: { accessKeyId: config.s3.accessKeyId, secretAccessKey: config.s3.secretAccessKey },
+		requestChecksumCalculation: 'WHEN_REQUIRED',
+		responseChecksumValidation: 'WHEN_REQUIRED'
+	});
+	return client;
+}
+
+export async function put(key: string, body: Uint8Array, contentType: string): Promise<void> {
+	await s3().send(new PutObjectCommand({ Bucket: config.s3.bucket, Key: key, Body: body, ContentType: contentType, ContentLength: body.byteLength }));
+}
+
+/** The stored bytes, or null when there is no such file. */
+export async function get(key: string): Promise<Uint8Array | null> {
+	try {
+		const out = await s3().send(new GetObjectCommand({ Bucket: config.s3.bucket, Key: key }));
+		return out.Body ? await out.Body.transformToByteArray() : new Uint8Array();
+	} catch (e) {
+		if (e instanceof NoSuchKey || (e as { name?: string }).name === 'NoSuchKey') return null;
+		throw e;
+	}
+}
+
+/** Deletes files; a missing one is not an error (S3's DELETE is idempotent). */
+export async function remove(keys: readonly string[]): Promise<void> {
+	for (const key of keys) await s3().send(new DeleteObjectCommand({ Bucket: config.s3.bucket, Key: key }));
+}
