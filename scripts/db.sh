@@ -75,7 +75,7 @@ place_data() {
 			mkdir -p "$real"
 			rm -rf "$data"
 			ln -s "$real" "$data"
-			log "project folder is private; cluster kept in $real (linked from .data/pg)"
+			log "project folder is private; cluster kept in $real (linked from $data)"
 		fi
 		data=$(readlink -f "$data")
 	fi
