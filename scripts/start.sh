@@ -35,4 +35,4 @@ cat >&2 <<TXT
   Caught mail (dev):        http://localhost:$port/admin/mail
 
 TXT
-PORT=$port ORIGIN=${ORIGIN:-http://localhost:$port} NODE_ENV=production node build
+HOST=${HOST:-127.0.0.1} PORT=$port ORIGIN=${ORIGIN:-http://localhost:$port} NODE_ENV=production node build
