@@ -38,7 +38,7 @@ const volt = (s: Solution, node: number) => s.at(node);
  * Nodes that a regulating stabilizer's output reaches through wires, joints, pins, fuses and
  * closed contacts: a DMM there shows the pulsing of the contacts.
  */
-function pulsingNodes(s: Solution): Set<number> {
+export function pulsingNodes(s: Solution): Set<number> {
 	const c = s.circuit;
 	const out = new Set<number>();
 	const conductors = new Set(['contact', 'pin', 'fuse']);

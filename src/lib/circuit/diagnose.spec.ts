@@ -1,0 +1,138 @@
+// Diagnosis on the invented demo harness and small hand-built circuits, each case reasoned by hand.
+import { describe, expect, it } from 'vitest';
+import { demoHarness, withOppositeEarth } from './demo';
+import { diagnose } from './diagnose';
+import { defaultScenario } from './scenario';
+import { assertDocument } from './schema';
+
+const demo = demoHarness();
+const scenario = defaultScenario(demo);
+
+// Parts and wires that belong to one gauge's own circuit (gauge, its sender, their wires, earth
+// and connector pin), as opposed to the shared stabilizer and its feed.
+const fuelOwn = ['fuel-gauge', 'fuel-sender', 'w-fuel-gauge', 'w-fuel-a', 'w-fuel-b', 'w-fuel-earth', 'tank-earth', 'rear-plug'];
+const tempOwn = ['temp-gauge', 'temp-sender', 'w-temp-gauge', 'w-temp-a', 'w-temp-b', 'w-temp-earth'];
+const mentions = (id: string, names: string[]) => names.some((n) => id.split(':').includes(n));
+
+describe('shared cause: two gauges fed through one stabilizer, each with its own sender', () => {
+	// By hand (TRADE.md, common practice): both gauges wrong together points at the stabilizer or
+	// its feed or earth; one gauge wrong points at that gauge, its sender or its wire. A fault in
+	// the fuel gauge's own circuit changes the fuel gauge's current only (the stabilizer holds its
+	// output for the other), so it cannot make both read low.
+	const both = diagnose({ doc: demo, scenario, marks: [{ part: 'fuel-gauge', mark: 'reads-low' }, { part: 'temp-gauge', mark: 'reads-low' }] });
+	it('marking both reads-low: the stabilizer (low output) and the shared feed are suspects, no fault of one gauge\u2019s own circuit is', () => {
+		const ids = both.suspects.map((s) => s.id);
+		expect(both.explainedBy).toBe('single');
+		expect(ids).toContain('stabilizer:low:stabilizer');
+		// The green fused feed from fuse 6 to the stabilizer's input, of high resistance.
+		expect(ids.some((id) => id.startsWith('joint:w-stab-in:'))).toBe(true);
+		expect(ids.some((id) => id.startsWith('fuse:fuse-ign'))).toBe(true);
+		const rank = (pred: (id: string) => boolean) => ids.findIndex(pred);
+		const own = rank((id) => mentions(id, fuelOwn) || mentions(id, tempOwn));
+		const stab = rank((id) => id === 'stabilizer:low:stabilizer');
+		expect(own === -1 || own > stab).toBe(true);
+	});
+	it('marking one reads-low and the other normal removes the stabilizer from the suspects', () => {
+		const one = diagnose({ doc: demo, scenario, marks: [{ part: 'fuel-gauge', mark: 'reads-low' }, { part: 'temp-gauge', mark: 'normal' }] });
+		const ids = one.suspects.map((s) => s.id);
+		expect(ids.some((id) => id.startsWith('stabilizer:'))).toBe(false);
+		expect(ids.every((id) => mentions(id, fuelOwn))).toBe(true);
+		expect(ids).toContain('earth-point:tank-earth:100');
+	});
+	it('the plan starts with a probe the suspects disagree on, and carries what the checklist needs', () => {
+		const first = both.plan.steps[0];
+		const probe = both.probes.find((p) => p.id === first.probe)!;
+		const readings = new Set(first.expected.map((e) => e.reading));
+		expect(readings.size).toBeGreaterThan(1);
+		expect(probe.place.key).toBeTruthy();
+		expect(probe.setting).toMatch(/volts|Ohms|lamp/i);
+		expect(probe.conditions.length).toBeGreaterThan(0);
+		// The demo has breaker-point ignition: powered probes carry the coil caution (TRADE.md).
+		if (probe.setup !== 'power-off') expect(probe.cautions.join(' ')).toMatch(/coil feed/);
+	});
+});
+
+// A lamp fed from a fused battery feed through one wire; earth through an earth point.
+const lampCircuit = assertDocument({
+	schemaVersion: 1,
+	vehicle: { systemVoltage: 12, earth: 'negative' },
+	parts: [
+		{ id: 'bat', key: '1', kind: 'battery' },
+		{ id: 'fuse', key: '2', kind: 'fuse' },
+		{ id: 'lamp', key: '3', kind: 'lamp', params: { watts: 5 }, location: 'rear' },
+		{ id: 'earth', key: '4', kind: 'earth-point', location: 'rear' },
+		{ id: 'strap', key: '5', kind: 'earth-point' }
+	],
+	wires: [
+		{ id: 'w1', from: { part: 'bat', terminal: '+' }, to: { part: 'fuse', terminal: 'in' }, code: 'N' },
+		{ id: 'w2', from: { part: 'fuse', terminal: 'out' }, to: { part: 'lamp', terminal: 'feed' }, code: 'R', lengthM: 3 },
+		{ id: 'w3', from: { part: 'lamp', terminal: 'earth' }, to: { part: 'earth', terminal: 'stud' }, code: 'B' },
+		{ id: 'w4', from: { part: 'bat', terminal: '-' }, to: { part: 'strap', terminal: 'stud' }, code: 'B' }
+	]
+});
+
+describe('test lamp versus voltmeter', () => {
+	const lampScenario = defaultScenario(lampCircuit);
+	const r = diagnose({
+		doc: lampCircuit,
+		scenario: lampScenario,
+		marks: [{ part: 'lamp', mark: 'dead' }],
+		onlyProbes: ['volts-out:lamp:feed', 'lamp-out:lamp:feed']
+	});
+	it('with the bulb out, a 100 Ω joint at the lamp reads full voltage on a 10 MΩ meter but dims a test lamp', () => {
+		// By hand: bulb out, no current but the meter's; 12.6 V × 10 MΩ / (10 MΩ + 100 Ω) ≈ 12.6 V,
+		// while a 5 W lamp (28.8 Ω) gets 12.6 × 28.8 / 128.8 ≈ 2.8 V: (2.8/12)² ≈ 5 % brightness.
+		const joint = r.suspects.findIndex((s) => s.id === 'joint:w2:to:100');
+		const bulb = r.suspects.findIndex((s) => s.id === 'lamp:open:lamp');
+		expect(joint).toBeGreaterThanOrEqual(0);
+		expect(bulb).toBeGreaterThanOrEqual(0);
+		const volts = r.probes.find((p) => p.id === 'volts-out:lamp:feed')!;
+		const lamp = r.probes.find((p) => p.id === 'lamp-out:lamp:feed')!;
+		expect(Math.abs(volts.expected[joint].reading - volts.expected[bulb].reading)).toBeLessThan(0.01);
+		expect(volts.expected[bulb].reading).toBeCloseTo(12.6, 1);
+		expect(lamp.expected[bulb].reading).toBeGreaterThan(90);
+		expect(lamp.expected[joint].reading).toBeLessThan(10);
+	});
+	it('the planner chooses the test lamp', () => {
+		expect(r.plan.steps[0].probe).toBe('lamp-out:lamp:feed');
+	});
+});
+
+describe('earth polarity', () => {
+	it('a positive-earth vehicle gives the same plan as its negative-earth mirror', () => {
+		const marks = [{ part: 'fuel-gauge', mark: 'reads-low' as const }, { part: 'temp-gauge', mark: 'normal' as const }];
+		const pos = diagnose({ doc: demo, scenario, marks });
+		const mirror = withOppositeEarth(demo);
+		const neg = diagnose({ doc: mirror, scenario: defaultScenario(mirror), marks });
+		expect(neg.suspects.map((s) => s.id)).toEqual(pos.suspects.map((s) => s.id));
+		// The same tree: the checklist numbers steps in rising order of reading, and readings
+		// mirror in sign, so compare the steps as a set and the first step's outcomes as a set.
+		const steps = (r: typeof pos) => r.plan.steps.map((s) => s.probe).sort();
+		expect(steps(neg)).toEqual(steps(pos));
+		expect(neg.plan.steps[0].probe).toBe(pos.plan.steps[0].probe);
+		const outcomes = (r: typeof pos) => r.plan.steps[0].outcomes.map((o) => JSON.stringify(o.then.kind === 'step' ? r.plan.steps[o.then.step - 1].probe : o.then)).sort();
+		expect(outcomes(neg)).toEqual(outcomes(pos));
+		expect(neg.plan.expectedProbes).toBeCloseTo(pos.plan.expectedProbes, 9);
+		expect(neg.minimalSet.probes).toEqual(pos.minimalSet.probes);
+		// Readings mirror in sign (TRADE.md: feeds read negative on positive earth).
+		const p = pos.probes.find((x) => x.id === 'volts:fuel-gauge:feed')!;
+		const n = neg.probes.find((x) => x.id === 'volts:fuel-gauge:feed')!;
+		expect(n.healthy).toBeCloseTo(-p.healthy, 6);
+	});
+});
+
+describe('re-planning from readings', () => {
+	it('a reading rules out the suspects it contradicts and plans from the rest', () => {
+		const marks = [{ part: 'fuel-gauge', mark: 'reads-low' as const }, { part: 'temp-gauge', mark: 'normal' as const }];
+		const first = diagnose({ doc: demo, scenario, marks });
+		const step = first.plan.steps[0];
+		const truth = first.suspects[0].id;
+		const reading = first.probes.find((p) => p.id === step.probe)!.expected.find((e) => e.suspect === truth)!.reading;
+		const again = diagnose({ doc: demo, scenario, marks, readings: { [step.probe]: reading } });
+		expect(again.readings!.remaining.map((x) => x.suspect)).toContain(truth);
+		expect(again.readings!.remaining.length).toBeLessThan(first.suspects.length);
+	});
+	it('names a bad mark by its path', () => {
+		expect(() => diagnose({ doc: demo, scenario, marks: [{ part: 'fuse-ign', mark: 'dead' }] })).toThrow(/marks\[0\]\.part/);
+	});
+});

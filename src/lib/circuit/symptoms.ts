@@ -1,0 +1,102 @@
+/**
+ * Marks → what a hypothesis must predict, and whether it does.
+ *
+ * A mark says how a part behaves: reads-low, reads-high, dead, erratic or normal. Each part
+ * kind is judged by one quantity, compared with the same quantity in the healthy circuit of the
+ * same scenario (same switch and sender positions): a gauge by its winding current (a thermal
+ * gauge's needle follows its heater current), a lamp by its filament power (brightness), any
+ * other part by its current. With r = faulted / healthy:
+ *
+ *   dead       r < dead               reads-low   dead ≤ r < low
+ *   normal     low ≤ r ≤ high         reads-high  r > high
+ *   erratic    a fault that can come and go (loose, corroded, broken inside) moving the part
+ *              off normal
+ *
+ * The thresholds (`MARK_THRESHOLDS`) are invented defaults of the order a person notices: a
+ * gauge 15 % off its usual reading, a lamp at 70 % of its power (about 84 % of its voltage).
+ */
+import type { Circuit } from './circuit';
+import { INTERMITTENT_KINDS, type Hypothesis } from './faults';
+import type { Part } from './schema';
+
+export const MARKS = ['reads-low', 'reads-high', 'dead', 'erratic', 'normal'] as const;
+export type Mark = (typeof MARKS)[number];
+
+export interface PartMark {
+	part: string;
+	mark: Mark;
+}
+
+export type Judged = 'gauge' | 'lamp' | 'current';
+
+/** Fractions of the healthy quantity (invented defaults; see the file header). */
+export const MARK_THRESHOLDS: Record<Judged, { dead: number; low: number; high: number }> = {
+	gauge: { dead: 0.1, low: 0.85, high: 1.15 },
+	lamp: { dead: 0.1, low: 0.7, high: 1.3 },
+	current: { dead: 0.1, low: 0.8, high: 1.2 }
+};
+
+/** The element whose current shows how a part behaves, and how it is judged; null when a part cannot be marked. */
+export function observedElement(c: Circuit, part: Part): { element: number; judged: Judged } | null {
+	const role: Partial<Record<Part['kind'], [string, Judged]>> = {
+		lamp: ['filament', 'lamp'],
+		gauge: ['winding', 'gauge'],
+		motor: ['winding', 'current'],
+		'ignition-coil': ['winding', 'current'],
+		load: ['resistance', 'current'],
+		resistor: ['resistance', 'current'],
+		relay: ['coil', 'current']
+	};
+	const r = role[part.kind];
+	if (!r) return null;
+	const k = c.elements.findIndex((e) => e.ref.kind === 'part' && e.ref.part === part.id && e.ref.role === r[0]);
+	return k < 0 ? null : { element: k, judged: r[1] };
+}
+
+/** The quantity a part is judged by, from the element's conductance and voltage. */
+export function quantity(judged: Judged, g: number, volts: number): number {
+	return judged === 'lamp' ? g * volts * volts : Math.abs(g * volts);
+}
+
+/** The mark a ratio to healthy earns (erratic aside). */
+export function markOf(judged: Judged, ratio: number): Exclude<Mark, 'erratic'> {
+	const t = MARK_THRESHOLDS[judged];
+	if (ratio < t.dead) return 'dead';
+	if (ratio < t.low) return 'reads-low';
+	if (ratio > t.high) return 'reads-high';
+	return 'normal';
+}
+
+/**
+ * How clearly a ratio sits inside its mark's band: 1 well inside, down to 0.5 on a threshold.
+ * Distances are taken on a log scale and saturate at a factor of 1.25 from the nearest edge.
+ */
+export function clarity(judged: Judged, ratio: number): number {
+	const t = MARK_THRESHOLDS[judged];
+	const r = Math.max(ratio, 1e-9);
+	const edges = [t.dead, t.low, t.high];
+	const d = Math.min(...edges.map((e) => Math.abs(Math.log(r / e))));
+	return 0.5 + 0.5 * Math.min(1, d / Math.log(1.25));
+}
+
+export interface Explanation {
+	explains: boolean;
+	/** Product of the marks' clarity (1 = every mark clearly as predicted). */
+	fit: number;
+	/** Per mark: the predicted mark. */
+	predicted: Exclude<Mark, 'erratic'>[];
+}
+
+/** Does a hypothesis, with these ratios per mark, explain every mark? */
+export function explain(h: Pick<Hypothesis, 'kind'>, marks: readonly PartMark[], judged: readonly Judged[], ratios: readonly number[]): Explanation {
+	let fit = 1;
+	let explains = true;
+	const predicted = marks.map((m, i) => {
+		const p = markOf(judged[i], ratios[i]);
+		const ok = m.mark === 'erratic' ? p !== 'normal' && INTERMITTENT_KINDS.has(h.kind as never) : m.mark === p;
+		if (!ok) explains = false;
+		fit *= clarity(judged[i], ratios[i]);
+		return p;
+	});
+	return { explains, fit, predicted };
+}
