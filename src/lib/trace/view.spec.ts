@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { demoHarness } from '$lib/circuit/demo';
 import { defaultScenario, type Scenario } from '$lib/circuit/scenario';
 import { pointKey, prepareTrace, type TracePoint } from '$lib/circuit/trace';
-import { traceView } from './view';
+import { canvasMarks, traceView } from './view';
 
 const doc = demoHarness();
 const base = defaultScenario(doc);
@@ -91,5 +91,20 @@ describe('traceView on the demo harness', () => {
 		const v = traceView(doc, tracer, ['no-such-part']);
 		expect(v.parts).toEqual([]);
 		expect(v.traces).toEqual([]);
+	});
+});
+
+describe('canvasMarks', () => {
+	it('gives each wire, part and terminal its own marks', () => {
+		const m = canvasMarks(traceView(doc, tracer, ['fuel-gauge', 'temp-gauge']));
+		expect(m.any).toBe(true);
+		expect(m.wires.get('w-fuel-gauge')).toMatchObject({ feed: true, earth: false, mustPass: true });
+		expect(m.wires.get('w-fuel-earth')).toMatchObject({ feed: false, earth: true });
+		expect(m.wires.has('w-horn')).toBe(false);
+		expect(m.parts.get('fuel-gauge')?.selected).toBe(true);
+		expect(m.parts.get('fuse-ign')).toMatchObject({ feed: true, mustPass: true });
+		// The shared feed marker sits on the stabilizer's output terminal.
+		expect(m.parts.get('stabilizer')?.terminals.get('out')?.shared).toEqual(['feed']);
+		expect(canvasMarks(traceView(doc, tracer, [])).any).toBe(false);
 	});
 });

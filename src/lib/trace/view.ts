@@ -180,3 +180,61 @@ export function traceView(doc: HarnessDocument, tracer: Tracer, partIds: readonl
 	const places = [...mustPass.values()].map((p) => placeOf(doc, p)).filter((p): p is MarkerPlace => p !== null);
 	return { parts, feed, earth, mustPass: new Set(mustPass.keys()), mustPassPlaces: places, traces, shared };
 }
+
+export interface TerminalMarks {
+	feed: boolean;
+	earth: boolean;
+	mustPass: boolean;
+	shared: Side[];
+}
+export interface PartMarks extends TerminalMarks {
+	selected: boolean;
+	terminals: Map<string, TerminalMarks>;
+}
+export interface WireMarks extends TerminalMarks {}
+
+export interface CanvasMarks {
+	/** True when something is traced: parts and wires off every path are drawn faint. */
+	any: boolean;
+	parts: Map<string, PartMarks>;
+	wires: Map<string, WireMarks>;
+}
+
+const blank = (): TerminalMarks => ({ feed: false, earth: false, mustPass: false, shared: [] });
+
+/** The view as look-ups per part, terminal and wire, so each node and edge finds its own marks at once. */
+export function canvasMarks(view: TraceView): CanvasMarks {
+	const parts = new Map<string, PartMarks>();
+	const wires = new Map<string, WireMarks>();
+	const part = (id: string) => {
+		let m = parts.get(id);
+		if (!m) parts.set(id, (m = { ...blank(), selected: false, terminals: new Map() }));
+		return m;
+	};
+	const terminal = (id: string) => {
+		const i = id.indexOf(':');
+		const m = part(id.slice(0, i));
+		const name = id.slice(i + 1);
+		let t = m.terminals.get(name);
+		if (!t) m.terminals.set(name, (t = blank()));
+		return t;
+	};
+	const wire = (id: string) => {
+		let m = wires.get(id);
+		if (!m) wires.set(id, (m = blank()));
+		return m;
+	};
+	for (const [side, marks] of [['feed', view.feed], ['earth', view.earth]] as const) {
+		for (const id of marks.parts) part(id)[side] = true;
+		for (const id of marks.wires) wire(id)[side] = true;
+		for (const id of marks.terminals) {
+			terminal(id)[side] = true;
+			part(id.slice(0, id.indexOf(':')))[side] = true;
+		}
+	}
+	const place = (p: MarkerPlace): TerminalMarks => (p.on === 'wire' ? wire(p.wire) : p.on === 'part' ? part(p.part) : terminal(terminalId(p.part, p.terminal)));
+	for (const p of view.mustPassPlaces) place(p).mustPass = true;
+	for (const s of view.shared ? [view.shared.feed, view.shared.earth] : []) if (s.place) place(s.place).shared.push(s.side);
+	for (const id of view.parts) part(id).selected = true;
+	return { any: view.parts.length > 0, parts, wires };
+}
