@@ -1,0 +1,68 @@
+import { json } from '@sveltejs/kit';
+import { z } from 'zod';
+import { requireDiagram } from '$lib/server/access';
+import { validateDocument } from '$lib/server/documents';
+import { BadRequest, endpoint, readBody } from '$lib/server/http';
+import { under } from '$lib/server/issues';
+import { buildCircuit } from '$lib/circuit/circuit';
+import { checkScenario, defaultScenario } from '$lib/circuit/scenario';
+import { ENTRY_DMM } from '$lib/circuit/meter-profiles';
+import { lampResistance } from '$lib/circuit/parts';
+import { Base, predictReadings, type Meter } from '$lib/circuit/predict';
+import type { HarnessDocument } from '$lib/circuit/schema';
+import type { RequestHandler } from './$types';
+
+const Point = z.union([z.literal('earth'), z.literal('chassis'), z.object({ part: z.string().min(1), terminal: z.string().min(1) })]);
+const Probe = z.object({
+	id: z.string().min(1).max(120),
+	kind: z.enum(['volts', 'drop', 'lamp', 'ohms']),
+	at: Point,
+	to: Point.default('earth')
+});
+const Body = z.object({ scenario: z.unknown().optional(), probes: z.array(Probe).min(1).max(2000) });
+
+function checkPoint(doc: HarnessDocument, p: z.output<typeof Point>, path: string) {
+	if (typeof p === 'string') return [];
+	const part = doc.parts.find((x) => x.id === p.part);
+	if (!part) return [{ path: `${path}.part`, message: `no part "${p.part}" in this diagram` }];
+	if (!part.terminals.includes(p.terminal)) return [{ path: `${path}.terminal`, message: `part ${part.key} has no terminal "${p.terminal}"; it has ${part.terminals.join(', ')}` }];
+	return [];
+}
+
+/**
+ * POST /api/diagrams/:id/predict { scenario?, probes: [{ id, kind, at, to? }] }
+ * → { revision, readings: [{ id, reading, unit }] } for the healthy circuit (entry-level DMM,
+ * 5 W test lamp; ohms with the battery disconnected).
+ */
+export const POST: RequestHandler = endpoint(async ({ locals, params, request }) => {
+	const { diagram } = await requireDiagram(locals, params.id, 'view');
+	const input = await readBody(request, Body);
+	const checked = validateDocument(diagram.document);
+	if (!checked.ok) throw new BadRequest('The diagram has problems; fix them in the editor first.', checked.errors.map((e) => ({ path: under('document', e.path), message: e.message })));
+	const doc = checked.doc;
+	const sc = checkScenario(doc, input.scenario ?? defaultScenario(doc));
+	if (!sc.ok) throw new BadRequest('The scenario has problems.', sc.errors.map((e) => ({ path: under('scenario', e.path), message: e.message })));
+	const issues = input.probes.flatMap((p, i) => [...checkPoint(doc, p.at, `probes[${i}].at`), ...checkPoint(doc, p.to, `probes[${i}].to`)]);
+	if (issues.length) throw new BadRequest('Some probes name points that are not in the diagram.', issues);
+	const meterOf = (p: z.output<typeof Probe>): Meter =>
+		p.kind === 'lamp'
+			? { kind: 'lamp', a: p.at, b: p.to, ohms: lampResistance(doc.vehicle.systemVoltage, ENTRY_DMM.lamp.watts), watts: ENTRY_DMM.lamp.watts }
+			: p.kind === 'ohms'
+				? { kind: 'ohms', a: p.at, b: p.to, testCurrent: ENTRY_DMM.ohms.testCurrent }
+				: { kind: 'volts', a: p.at, b: p.to, inputOhms: ENTRY_DMM.inputOhms };
+	const powered = input.probes.map((p, i) => [p, i] as const).filter(([p]) => p.kind !== 'ohms');
+	const ohms = input.probes.map((p, i) => [p, i] as const).filter(([p]) => p.kind === 'ohms');
+	const out: { id: string; reading: number | 'OL'; unit: string }[] = input.probes.map((p) => ({ id: p.id, reading: 0, unit: p.kind === 'lamp' ? '%' : p.kind === 'ohms' ? 'Ω' : 'V' }));
+	const run = (scenario: typeof sc.scenario, list: typeof powered) => {
+		if (!list.length) return;
+		const rows = predictReadings(new Base(buildCircuit(doc, scenario)), [{ changes: [] }], list.map(([p]) => meterOf(p)));
+		list.forEach(([p, i], r) => {
+			const v = rows[r][0];
+			out[i].reading = p.kind === 'lamp' ? v * 100 : p.kind === 'ohms' && !(v <= ENTRY_DMM.ohms.overLimit) ? 'OL' : v;
+		});
+	};
+	run(sc.scenario, powered);
+	const batteries = doc.parts.filter((p) => p.kind === 'battery').map((p) => p.id);
+	run({ ...sc.scenario, engineRunning: false, disconnected: [...sc.scenario.disconnected, ...batteries] }, ohms);
+	return json({ revision: diagram.revision, readings: out });
+});

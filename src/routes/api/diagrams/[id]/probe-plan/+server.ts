@@ -1,0 +1,55 @@
+import { json } from '@sveltejs/kit';
+import { z } from 'zod';
+import { requireDiagram } from '$lib/server/access';
+import { validateDocument } from '$lib/server/documents';
+import { BadRequest, endpoint, readBody } from '$lib/server/http';
+import { under } from '$lib/server/issues';
+import { checkScenario, defaultScenario } from '$lib/circuit/scenario';
+import { diagnose, DiagnoseError, FAULT_KINDS } from '$lib/circuit/diagnose';
+import { MARKS } from '$lib/circuit/symptoms';
+import { METER_PROFILES, MeterProfileSchema } from '$lib/circuit/meter-profiles';
+import { PROBE_KINDS } from '$lib/circuit/probes';
+import { LOCATIONS } from '$lib/circuit/parts';
+import type { RequestHandler } from './$types';
+
+const Body = z.object({
+	scenario: z.unknown().optional(),
+	marks: z.array(z.object({ part: z.string().min(1), mark: z.enum(MARKS) })).min(1, 'mark at least one part'),
+	meter: z.union([z.enum(Object.keys(METER_PROFILES) as [string, ...string[]]), MeterProfileSchema]).optional(),
+	readings: z.record(z.string(), z.union([z.number().finite(), z.literal('OL'), z.literal('unreachable')])).optional(),
+	weights: z.partialRecord(z.enum(FAULT_KINDS), z.number().nonnegative()).optional(),
+	reach: z.partialRecord(z.enum(LOCATIONS), z.number().positive()).optional(),
+	tools: z.array(z.enum(PROBE_KINDS)).min(1).optional()
+});
+
+/**
+ * POST /api/diagrams/:id/probe-plan { scenario?, marks, meter?, readings?, weights?, reach?, tools? }
+ * → { revision, suspects, probes, minimalSet, ambiguityGroups, plan, readings?, notes }
+ */
+export const POST: RequestHandler = endpoint(async ({ locals, params, request }) => {
+	const { diagram } = await requireDiagram(locals, params.id, 'view');
+	const input = await readBody(request, Body);
+	const checked = validateDocument(diagram.document);
+	if (!checked.ok) throw new BadRequest('The diagram has problems; fix them in the editor first.', checked.errors.map((e) => ({ path: under('document', e.path), message: e.message })));
+	const doc = checked.doc;
+	const sc = checkScenario(doc, input.scenario ?? defaultScenario(doc));
+	if (!sc.ok) throw new BadRequest('The scenario has problems.', sc.errors.map((e) => ({ path: under('scenario', e.path), message: e.message })));
+	const meter = typeof input.meter === 'string' ? METER_PROFILES[input.meter] : input.meter;
+	try {
+		const r = diagnose({ doc, scenario: sc.scenario, marks: input.marks, meter, readings: input.readings, weights: input.weights, reach: input.reach, tools: input.tools });
+		return json({
+			revision: diagram.revision,
+			explainedBy: r.explainedBy,
+			suspects: r.suspects,
+			probes: r.probes,
+			minimalSet: r.minimalSet,
+			ambiguityGroups: r.ambiguityGroups,
+			plan: r.plan,
+			...(r.readings ? { readings: r.readings } : {}),
+			notes: r.notes
+		});
+	} catch (e) {
+		if (e instanceof DiagnoseError) throw new BadRequest('Some fields need fixing.', e.issues);
+		throw e;
+	}
+});
