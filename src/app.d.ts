@@ -4,6 +4,8 @@ declare global {
 		interface Locals {
 			user: import('lucia').User | null;
 			session: import('lucia').Session | null;
+			/** A read-only link token sent with an API request (?link= or x-loomwright-link). */
+			linkToken?: string | null;
 		}
 		interface Error {
 			message: string;

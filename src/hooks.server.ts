@@ -26,6 +26,10 @@ export const handle: Handle = async ({ event, resolve }) => {
 		event.locals.user = user;
 		event.locals.session = current;
 	}
+	// A read-only link may be sent with API reads; access.ts decides what it opens.
+	if (event.url.pathname.startsWith('/api/')) {
+		event.locals.linkToken = event.url.searchParams.get('link') ?? event.request.headers.get('x-loomwright-link');
+	}
 	// Signed-in pages live in the (app) group; its layout redirects too, but form actions run
 	// before any layout load, so the same rule is applied here first.
 	if (!event.locals.user && event.route.id?.startsWith('/(app)')) {

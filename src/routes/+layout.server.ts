@@ -1,5 +1,10 @@
 import { publicUser } from '$lib/server/auth/accounts';
+import { config } from '$lib/server/config';
 import type { LayoutServerLoad } from './$types';
 
 // A whitelisted subset of the account for every page; never the row.
-export const load: LayoutServerLoad = ({ locals }) => ({ user: publicUser(locals.user) });
+export const load: LayoutServerLoad = ({ locals }) => ({
+	user: publicUser(locals.user),
+	// Whether to offer the caught-mail page (development, admins only; the page checks again).
+	devMail: config.devMail && locals.user?.role === 'admin'
+});

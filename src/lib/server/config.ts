@@ -25,5 +25,8 @@ export const config = {
 		forcePathStyle: env.S3_FORCE_PATH_STYLE !== '0'
 	},
 	// Shows the caught-mail page to admins; on wherever the local SMTP catcher is used.
-	devMail: env.LOOM_DEV_MAIL === '1'
+	devMail: env.LOOM_DEV_MAIL === '1',
+	// The local SMTP catcher's list of caught messages (scripts/fakes.ts), read by that page.
+	caughtMailUrl:
+		env.CAUGHT_MAIL_URL ?? `http://127.0.0.1:${env.MAIL_API_PORT ?? Number(env.SMTP_PORT ?? 2525) + 1}/messages`
 };

@@ -9,7 +9,7 @@ import type { Actions, PageServerLoad } from './$types';
 export const load: PageServerLoad = ({ locals, url }) => {
 	const next = safeNext(url.searchParams.get('next'));
 	if (locals.user) redirect(303, next);
-	return { next };
+	return { next, reset: url.searchParams.get('reset') === '1' };
 };
 
 export const actions: Actions = {
@@ -23,7 +23,7 @@ export const actions: Actions = {
 		const result = await accounts.signIn(parsed.data.email, parsed.data.password, getClientAddress());
 		if (!result.ok) return fail(result.status, { values, errors: {} as Record<string, string>, message: result.message, reason: result.reason });
 
-		await session.start(cookies, result.user.id);
+		await session.start(cookies, result.user.id, request.headers.get('user-agent') ?? '');
 		redirect(303, next);
 	}
 };

@@ -1,5 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import * as accounts from '$lib/server/auth/accounts';
+import * as links from '$lib/server/auth/links';
 import * as session from '$lib/server/auth/session';
 import { formObject, signUpForm } from '$lib/server/forms';
 import { fieldErrors, fromZod } from '$lib/server/issues';
@@ -19,7 +20,8 @@ export const actions: Actions = {
 		const result = await accounts.createAccount(parsed.data);
 		if (!result.ok) return fail(400, { values, errors: { [result.field]: result.message } });
 
-		await session.start(cookies, result.user.id);
+		await links.sendVerification(result.user);
+		await session.start(cookies, result.user.id, request.headers.get('user-agent') ?? '');
 		redirect(303, '/garage');
 	}
 };

@@ -108,3 +108,22 @@ export function publicUser(user: { id: string; displayName: string; email: strin
 	if (!user) return null;
 	return { id: user.id, displayName: user.displayName, email: user.email, role: user.role };
 }
+
+export type PasswordChange = { ok: true } | { ok: false; field: 'current' | 'password'; message: string };
+
+/** Changes a password after checking the current one (OWASP ASVS 4.0.3 §2.1.5/§2.1.6). */
+export async function changePassword(userId: string, current: string, next: string): Promise<PasswordChange> {
+	const [user] = await db.select().from(users).where(eq(users.id, userId));
+	if (!user || !(await verifyPassword(user.passwordHash, current))) {
+		return { ok: false, field: 'current', message: 'That is not your current password.' };
+	}
+	const refusal = checkPassword(next, { email: user.email });
+	if (refusal) return { ok: false, field: 'password', message: refusal };
+	if (next === current) return { ok: false, field: 'password', message: 'Choose a password different from the current one.' };
+	await db.update(users).set({ passwordHash: await hashPassword(next) }).where(eq(users.id, userId));
+	return { ok: true };
+}
+
+export async function setNotifyComments(userId: string, on: boolean): Promise<void> {
+	await db.update(users).set({ notifyComments: on }).where(eq(users.id, userId));
+}

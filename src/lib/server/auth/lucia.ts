@@ -32,5 +32,6 @@ declare module 'lucia' {
 	interface Register {
 		Lucia: typeof lucia;
 		DatabaseUserAttributes: Omit<User, 'id'>;
+		DatabaseSessionAttributes: { userAgent?: string };
 	}
 }

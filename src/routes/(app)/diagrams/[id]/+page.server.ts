@@ -3,12 +3,15 @@ import { requireDiagram } from '$lib/server/access';
 import { diagramTitle, formObject } from '$lib/server/forms';
 import * as diagrams from '$lib/server/garage/diagrams';
 import * as vehicles from '$lib/server/garage/vehicles';
+import * as shares from '$lib/server/shares';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals, params }) => {
-	const { diagram, vehicle } = await requireDiagram(locals, params.id, 'view');
+	const { diagram, vehicle, level } = await requireDiagram(locals, params.id, 'view');
 	return {
 		diagram: diagrams.toJson(diagram),
+		level,
+		basedOn: shares.basedOn(diagram),
 		vehicle: vehicles.toJson(vehicle),
 		history: await diagrams.history(diagram.id)
 	};
@@ -24,7 +27,7 @@ export const actions: Actions = {
 		return { action: 'rename', saved: true };
 	},
 	delete: async ({ locals, params }) => {
-		const { diagram } = await requireDiagram(locals, params.id, 'edit');
+		const { diagram } = await requireDiagram(locals, params.id, 'owner');
 		await diagrams.remove(diagram.id);
 		redirect(303, `/garage/${diagram.vehicleId}`);
 	}

@@ -37,9 +37,9 @@ export const PUT: RequestHandler = endpoint(async ({ locals, params, request }) 
 	return json({ diagram: diagrams.toJson(result.diagram, true) });
 });
 
-/** DELETE /api/diagrams/:id → 204, with its revision history. */
+/** DELETE /api/diagrams/:id → 204, with its revision history. Its owner only. */
 export const DELETE: RequestHandler = endpoint(async ({ locals, params }) => {
-	const { diagram } = await requireDiagram(locals, params.id, 'edit');
+	const { diagram } = await requireDiagram(locals, params.id, 'owner');
 	await diagrams.remove(diagram.id);
 	return new Response(null, { status: 204 });
 });

@@ -1,0 +1,36 @@
+import { fail } from '@sveltejs/kit';
+import { canComment, requireDiagram } from '$lib/server/access';
+import * as comments from '$lib/server/comments';
+import { formObject } from '$lib/server/forms';
+import { fieldErrors, fromZod } from '$lib/server/issues';
+import type { Actions, PageServerLoad } from './$types';
+
+// The discussion of a diagram: on the whole drawing, or on one part or wire; threaded.
+export const load: PageServerLoad = async ({ locals, params }) => {
+	const { diagram } = await requireDiagram(locals, params.id, 'comment');
+	return {
+		diagram: { id: diagram.id, title: diagram.title },
+		comments: await comments.list(diagram.id),
+		targets: comments.targetsOf(diagram.document),
+		canComment: canComment(locals.user, diagram)
+	};
+};
+
+export const actions: Actions = {
+	default: async ({ locals, params, request }) => {
+		const { diagram } = await requireDiagram(locals, params.id, 'comment');
+		const values = formObject(await request.formData());
+		// The target picker sends "part:<id>" or "wire:<id>" in one field.
+		const [target, ...rest] = (values.about ?? 'diagram').split(':');
+		const parsed = comments.commentBody.safeParse({
+			body: values.body,
+			parentId: values.parentId || undefined,
+			target,
+			targetId: rest.join(':') || undefined
+		});
+		if (!parsed.success) return fail(400, { values, errors: fieldErrors(fromZod(parsed.error)) });
+		const r = await comments.add(diagram, locals.user!, parsed.data);
+		if (!r.ok) return fail(400, { values, errors: { [r.field]: r.message } as Record<string, string> });
+		return { posted: r.comment.id };
+	}
+};
