@@ -127,3 +127,29 @@ test('a manual page is traced under the canvas at the chosen opacity; another ac
 	await other.close();
 	await anonymous.close();
 });
+
+test('export the document file, import it as a new diagram: the documents are equal', async ({ page }) => {
+	await signIn(page);
+	const id = await newDiagram(page.request, 'Round trip loom', demo);
+	await page.goto(`/diagrams/${id}/draw`);
+	await page.getByText('Export ▾').click();
+	const [file] = await Promise.all([page.waitForEvent('download'), page.getByRole('menuitem', { name: 'Document file (JSON)' }).click()]);
+	expect(file.suggestedFilename()).toBe('round-trip-loom.loom.json');
+	const path = await file.path();
+
+	await page.getByRole('button', { name: 'Import…' }).click();
+	await page.getByTestId('import-file').setInputFiles({ name: 'round-trip-loom.loom.json', mimeType: 'application/json', buffer: readFileSync(path) });
+	await page.getByTestId('import-open-new').click();
+	await page.waitForURL((url) => /\/diagrams\/[0-9a-f-]{36}\/draw$/.test(url.pathname) && !url.pathname.includes(id));
+	await expect(page.locator('.svelte-flow__node')).toHaveCount(demo.parts.length);
+	const copyId = new URL(page.url()).pathname.split('/')[2];
+	expect((await documentOf(page.request, copyId)).document).toEqual((await documentOf(page.request, id)).document);
+
+	// A broken file names the JSON path of each problem and opens nothing.
+	const broken = JSON.parse(readFileSync(path, 'utf8'));
+	broken.wires[0].to.terminal = 'nowhere';
+	await page.getByRole('button', { name: 'Import…' }).click();
+	await page.getByTestId('import-file').setInputFiles({ name: 'broken.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(broken)) });
+	await expect(page.getByTestId('document-errors')).toContainText('wires[0].to.terminal');
+	await expect(page.getByTestId('import-open-new')).toHaveCount(0);
+});
