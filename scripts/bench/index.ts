@@ -1,14 +1,27 @@
-// npm run bench: every benchmark of the reasoning core, one after another, printing figures.
-// Targets are stated beside each table; nothing here fails a build.
+// npm run bench [-- NAME ...]: the benchmarks of the reasoning core, one after another, printing
+// figures (targets are stated beside each table; nothing here fails a build). Names pick suites:
+// core, plan, faults, layout. The drawing board's browser benchmark is `npm run bench:ui`.
 import * as core from './core';
+import * as faults from './faults';
+import * as layout from './layout';
 import * as plan from './plan';
 
-const suites: [string, { run(): Promise<void> }][] = [
-	['circuit core: solve and trace (ngspice side by side)', core],
-	['probe selection and planning', plan]
-];
+const suites: Record<string, [string, { run(): Promise<void> }]> = {
+	core: ['circuit core: solve and trace, with ngspice side by side', core],
+	plan: ['probe selection and planning on generated tables', plan],
+	faults: ['fault predictions (incremental vs full), minimal set and plan on generated harnesses', faults],
+	layout: ['auto-layout with elkjs', layout]
+};
 
-for (const [name, suite] of suites) {
-	console.log(`\n=== ${name} ===\n`);
+const picked = process.argv.slice(2);
+for (const name of picked) {
+	if (!(name in suites)) {
+		console.error(`no benchmark "${name}"; there are: ${Object.keys(suites).join(', ')}`);
+		process.exit(2);
+	}
+}
+for (const name of picked.length ? picked : Object.keys(suites)) {
+	const [title, suite] = suites[name];
+	console.log(`\n=== ${title} ===\n`);
 	await suite.run();
 }
