@@ -140,4 +140,15 @@ describe('manual pages', () => {
 		for (const k of keys) expect(await storage.get(k)).toBeNull();
 		expect(await db.select().from(manualPages).where(eq(manualPages.diagramId, diagramId))).toHaveLength(0);
 	});
+
+	it('deletes the pages’ files of every diagram of a deleted vehicle', async () => {
+		const v = await call('POST', '/api/vehicles', owner.cookie, { name: 'Sold Roadster', systemVoltage: 12, earthPolarity: 'negative' });
+		const d = await call('POST', '/api/diagrams', owner.cookie, { vehicleId: v.body.vehicle.id, title: 'Gone with it' });
+		const up = await upload(d.body.diagram.id, owner.cookie, page, 'c.png');
+		expect(up.status).toBe(201);
+		const [row] = await db.select().from(manualPages).where(eq(manualPages.id, up.body.page.id));
+		expect(await storage.get(row.storageKey)).not.toBeNull();
+		expect((await call('DELETE', `/api/vehicles/${v.body.vehicle.id}`, owner.cookie)).status).toBe(204);
+		expect(await storage.get(row.storageKey)).toBeNull();
+	});
 });
