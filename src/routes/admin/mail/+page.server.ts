@@ -22,8 +22,10 @@ export const load: PageServerLoad = async ({ locals, fetch }) => {
 	}
 	return {
 		problem,
+		total: caught.length,
+		// The newest hundred is plenty to find a message; the catcher keeps up to 500.
 		messages: caught
-			.slice()
+			.slice(-100)
 			.reverse()
 			.map((m) => ({ id: m.id, envelopeTo: m.to, receivedAt: m.receivedAt, ...readMessage(m.raw) }))
 	};
