@@ -54,6 +54,21 @@ describe('toElkGraph', () => {
 		// geometry, the fuse's in too, so the wire keeps its direction there.
 		expect(g.edges!.find((e) => e.id === 'b')).toMatchObject({ sources: ['fuse:out'], targets: ['lamp:feed'] });
 	});
+
+	it('runs feeds out of the battery and into earth points, however the wire was drawn', () => {
+		const drawnBackwards = {
+			...chain,
+			wires: [
+				{ ...chain.wires[0], from: { part: 'fuse', terminal: 'in' }, to: { part: 'bat', terminal: '+' } },
+				{ ...chain.wires[2], from: { part: 'earth', terminal: 'stud' }, to: { part: 'lamp', terminal: 'earth' } }
+			]
+		};
+		const g = toElkGraph(drawnBackwards);
+		expect(g.edges!.map((e) => [e.sources[0], e.targets[0]])).toEqual([
+			['bat:+', 'fuse:in'],
+			['lamp:earth', 'earth:stud']
+		]);
+	});
 });
 
 describe('layoutPositions (layered)', { timeout: 60_000 }, () => {

@@ -60,12 +60,20 @@ export function toElkGraph(doc: HarnessDocument): ElkNode {
 		});
 		return { id: part.id, width: g.width, height: g.height, ports, layoutOptions: { 'elk.portConstraints': 'FIXED_POS' } };
 	});
+	const kind = new Map(doc.parts.map((p) => [p.id, p.kind]));
 	const edges: ElkExtendedEdge[] = doc.wires.map((w) => {
 		let a = portId(w.from.part, w.from.terminal);
 		let b = portId(w.to.part, w.to.terminal);
-		// Into a part on its left, out on its right: flip a wire drawn against that flow.
-		if (sides.get(a) === 'left' && sides.get(b) !== 'left') [a, b] = [b, a];
-		else if (sides.get(b) === 'right' && sides.get(a) !== 'right') [a, b] = [b, a];
+		const ka = kind.get(w.from.part);
+		const kb = kind.get(w.to.part);
+		// Feeds leave the battery and end at earth points, as a schematic reads (common practice);
+		// elsewhere, into a part on its left and out on its right.
+		if (ka === 'earth-point' && kb !== 'earth-point') [a, b] = [b, a];
+		else if (kb === 'battery' && ka !== 'battery') [a, b] = [b, a];
+		else if (ka !== 'battery' && kb !== 'earth-point') {
+			if (sides.get(a) === 'left' && sides.get(b) !== 'left') [a, b] = [b, a];
+			else if (sides.get(b) === 'right' && sides.get(a) !== 'right') [a, b] = [b, a];
+		}
 		return { id: w.id, sources: [a], targets: [b] };
 	});
 	return { id: 'harness', layoutOptions: optionsFor(doc.parts.length), children, edges };
