@@ -97,6 +97,17 @@ describe('password reset by e-mail', () => {
 	});
 });
 
+describe('reset requests per hour', () => {
+	it('sends at most three reset e-mails an hour to one account, whatever the form is sent', async () => {
+		const p = await person('Flood Target');
+		for (let i = 0; i < 5; i++) expect((await form('/reset', { email: p.email })).status).toBe(200);
+		await mailTo(p.email, /Reset your/);
+		await new Promise((r) => setTimeout(r, 400));
+		// The limit is the product's own (links.RESETS_PER_HOUR = 3).
+		expect(await mailCount(p.email)).toBe(3);
+	});
+});
+
 describe('account page', () => {
 	it('changes the password only with the current one, and can end the other sessions', async () => {
 		const p = await person('Change Charlie');

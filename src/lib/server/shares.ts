@@ -93,7 +93,14 @@ export async function sharedWith(userId: string) {
 		.leftJoin(clubs, eq(clubs.id, diagramShares.clubId))
 		.where(and(sharesReaching(userId), sql`${diagrams.ownerId} <> ${userId}`))
 		.orderBy(desc(diagrams.updatedAt));
-	return rows;
+	// One line per diagram, at the highest level that reaches the account.
+	const rank = { view: 1, comment: 2, edit: 3 } as const;
+	const best = new Map<string, (typeof rows)[number]>();
+	for (const r of rows) {
+		const seen = best.get(r.id);
+		if (!seen || rank[r.level] > rank[seen.level]) best.set(r.id, r);
+	}
+	return [...best.values()];
 }
 
 export async function links(diagramId: string) {

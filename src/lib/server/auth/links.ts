@@ -1,7 +1,7 @@
 // One-time e-mail links: confirming an address and resetting a password.
 // A reset link lasts one hour and works once; only its SHA-256 is stored; using it ends every
 // session of the account (OWASP Forgot Password Cheat Sheet: "URL tokens", "invalidate sessions").
-import { and, eq, gt, lt } from 'drizzle-orm';
+import { and, count, eq, gt, lt } from 'drizzle-orm';
 import { db } from '../db';
 import { emailTokens, users, type User } from '../db/schema';
 import * as mail from '../mail';
@@ -56,9 +56,17 @@ export async function verify(token: string): Promise<User | null> {
 	return user ?? null;
 }
 
+/** At most this many reset e-mails an hour per account, so the form cannot flood an inbox. */
+export const RESETS_PER_HOUR = 3;
+
 /** Sends a reset link when the address has an account; says nothing either way (no enumeration). */
 export async function requestReset(user: User | undefined): Promise<void> {
 	if (!user || user.disabled) return;
+	const [recent] = await db
+		.select({ n: count() })
+		.from(emailTokens)
+		.where(and(eq(emailTokens.userId, user.id), eq(emailTokens.purpose, 'reset'), gt(emailTokens.createdAt, new Date(Date.now() - RESET_LIFETIME_MS))));
+	if ((recent?.n ?? 0) >= RESETS_PER_HOUR) return;
 	const token = await issue(user.id, 'reset', RESET_LIFETIME_MS);
 	await mail.passwordReset(user.email, user.displayName, mail.link(`/reset/${token}`));
 }

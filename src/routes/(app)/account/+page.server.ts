@@ -2,6 +2,7 @@ import { fail } from '@sveltejs/kit';
 import { eq } from 'drizzle-orm';
 import { requireUser } from '$lib/server/access';
 import * as accounts from '$lib/server/auth/accounts';
+import * as links from '$lib/server/auth/links';
 import * as session from '$lib/server/auth/session';
 import { db } from '$lib/server/db';
 import { users } from '$lib/server/db/schema';
@@ -45,6 +46,11 @@ export const actions: Actions = {
 		const user = requireUser(locals);
 		const n = locals.session ? await session.endOthers(user.id, locals.session.id) : 0;
 		return { action: 'sessions', message: n ? `${n} other session${n === 1 ? '' : 's'} ended.` : 'There were no other sessions.' };
+	},
+	confirm: async ({ locals }) => {
+		const user = requireUser(locals);
+		await links.sendVerification(user);
+		return { action: 'confirm', message: `A confirmation link is on its way to ${user.email}.` };
 	},
 	notifications: async ({ locals, request }) => {
 		const user = requireUser(locals);
