@@ -81,6 +81,8 @@ test('a CSV with planted errors lists them by row and column and imports only th
 });
 
 test('a manual page is traced under the canvas at the chosen opacity; another account cannot fetch it', async ({ page, browser }) => {
+	// Upload, reload and a second sign-up (argon2id) on a busy two-core machine.
+	test.setTimeout(120_000);
 	await signIn(page);
 	const id = await newDiagram(page.request, 'Traced loom', demo);
 	await page.goto(`/diagrams/${id}/draw`);
