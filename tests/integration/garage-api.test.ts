@@ -2,41 +2,9 @@
 // field, and the revision check on saves (409, never an overwrite).
 import { and, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import * as accounts from '../../src/lib/server/auth/accounts';
 import { db } from '../../src/lib/server/db';
 import { diagramRevisions, diagrams, vehicles } from '../../src/lib/server/db/schema';
-import { baseUrl } from './helpers';
-
-const unique = (name: string) => `${name}-${crypto.randomUUID().slice(0, 8)}@example.test`;
-
-async function account(name: string) {
-	const email = unique(name);
-	const password = 'bobbin-cutout-contacts';
-	const created = await accounts.createAccount({ email, displayName: name, password });
-	if (!created.ok) throw new Error(created.message);
-	const res = await fetch(`${baseUrl()}/signin`, {
-		method: 'POST',
-		redirect: 'manual',
-		headers: { origin: baseUrl(), accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' },
-		body: new URLSearchParams({ email, password })
-	});
-	const cookie = res.headers.getSetCookie().find((c) => c.startsWith('__Host-loomwright_session='))!.split(';')[0];
-	return { id: created.user.id, cookie };
-}
-
-async function call(method: string, path: string, cookie: string | null, body?: unknown) {
-	const res = await fetch(baseUrl() + path, {
-		method,
-		headers: {
-			accept: 'application/json',
-			...(cookie ? { cookie } : {}),
-			...(body !== undefined ? { 'content-type': 'application/json' } : {})
-		},
-		body: body === undefined ? undefined : typeof body === 'string' ? body : JSON.stringify(body)
-	});
-	const text = await res.text();
-	return { status: res.status, body: text ? JSON.parse(text) : null };
-}
+import { api as call, baseUrl, signedInAccount as account } from './helpers';
 
 const kestrel = { name: 'Test Kestrel', make: 'Hartwell & Pryce', model: 'Kestrel Tourer', year: '1962', systemVoltage: 12, earthPolarity: 'positive' };
 const oneLamp = {

@@ -9,37 +9,11 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { demoHarness } from '../../src/lib/circuit/demo';
 import { parseDocument, type HarnessDocument } from '../../src/lib/circuit/schema';
 import { exportDocument } from '../../src/lib/harness-io/json';
-import * as accounts from '../../src/lib/server/auth/accounts';
 import { db } from '../../src/lib/server/db';
 import { diagramRevisions } from '../../src/lib/server/db/schema';
-import { baseUrl } from './helpers';
+import { api as call, signedInAccount as account } from './helpers';
 
 const fixture = (name: string) => readFileSync(new URL(`../../fixtures/${name}`, import.meta.url));
-
-async function account(name: string) {
-	const email = `${name}-${crypto.randomUUID().slice(0, 8)}@example.test`;
-	const password = 'bobbin-cutout-contacts';
-	const created = await accounts.createAccount({ email, displayName: name, password });
-	if (!created.ok) throw new Error(created.message);
-	const res = await fetch(`${baseUrl()}/signin`, {
-		method: 'POST',
-		redirect: 'manual',
-		headers: { origin: baseUrl(), accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' },
-		body: new URLSearchParams({ email, password })
-	});
-	const cookie = res.headers.getSetCookie().find((c) => c.startsWith('__Host-loomwright_session='))!.split(';')[0];
-	return { id: created.user.id, cookie };
-}
-
-async function call(method: string, path: string, cookie: string, body?: unknown) {
-	const res = await fetch(baseUrl() + path, {
-		method,
-		headers: { accept: 'application/json', cookie, ...(body !== undefined ? { 'content-type': 'application/json' } : {}) },
-		body: body === undefined ? undefined : JSON.stringify(body)
-	});
-	const text = await res.text();
-	return { status: res.status, body: text ? JSON.parse(text) : null };
-}
 
 /** What a CSV carries of a document: parts by key, wires by their ends' keys. */
 function byKeys(doc: HarnessDocument) {

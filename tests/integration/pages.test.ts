@@ -4,38 +4,12 @@
 import { readFileSync } from 'node:fs';
 import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
-import * as accounts from '../../src/lib/server/auth/accounts';
 import { db } from '../../src/lib/server/db';
 import { manualPages } from '../../src/lib/server/db/schema';
 import * as storage from '../../src/lib/server/storage';
-import { baseUrl } from './helpers';
+import { api as call, baseUrl, signedInAccount as account } from './helpers';
 
 const page = new Uint8Array(readFileSync(new URL('../../fixtures/manual-page.png', import.meta.url)));
-
-async function account(name: string) {
-	const email = `${name}-${crypto.randomUUID().slice(0, 8)}@example.test`;
-	const password = 'bobbin-cutout-contacts';
-	const created = await accounts.createAccount({ email, displayName: name, password });
-	if (!created.ok) throw new Error(created.message);
-	const res = await fetch(`${baseUrl()}/signin`, {
-		method: 'POST',
-		redirect: 'manual',
-		headers: { origin: baseUrl(), accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' },
-		body: new URLSearchParams({ email, password })
-	});
-	const cookie = res.headers.getSetCookie().find((c) => c.startsWith('__Host-loomwright_session='))!.split(';')[0];
-	return { id: created.user.id, cookie };
-}
-
-async function call(method: string, path: string, cookie: string | null, body?: unknown) {
-	const res = await fetch(baseUrl() + path, {
-		method,
-		headers: { accept: 'application/json', ...(cookie ? { cookie } : {}), ...(body !== undefined ? { 'content-type': 'application/json' } : {}) },
-		body: body === undefined ? undefined : JSON.stringify(body)
-	});
-	const text = await res.text();
-	return { status: res.status, body: text ? JSON.parse(text) : null };
-}
 
 async function upload(diagramId: string, cookie: string, bytes: Uint8Array, name: string, type = 'image/png') {
 	const form = new FormData();
