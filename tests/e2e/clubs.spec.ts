@@ -2,27 +2,14 @@
 // with the club; the member accepts from the caught invitation mail, opens the diagram
 // read-only, copies it to their own garage and corrects a wire code in the copy; the original
 // stays as it was, and the owner's comment notification is caught. Accounts are made here with
-// unique addresses, so the spec depends on no other. The loom below is invented.
+// unique addresses, so the spec depends on no other. The loom is the invented panel-lamp one.
 import { expect, test, type Page } from '@playwright/test';
-import { waitSaved } from './editor-helpers';
+import { panelLampLoom, waitSaved } from './editor-helpers';
 
 const MAIL = `http://127.0.0.1:${process.env.MAIL_API_PORT ?? 2626}/messages`;
 const unique = (name: string) => `${name}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@example.test`;
 
-const loom = {
-	schemaVersion: 1,
-	vehicle: { systemVoltage: 12, earth: 'positive' },
-	palette: 'trade-letters',
-	parts: [
-		{ id: 'sw', key: '7', label: 'Panel switch', kind: 'switch', terminals: ['1', '2'], params: { positions: [{ name: 'off', closed: [] }, { name: 'on', closed: [['1', '2']] }] }, position: { x: 0, y: 0 } },
-		{ id: 'lamp', key: '12', label: 'Panel lamp', kind: 'lamp', position: { x: 320, y: 60 } },
-		{ id: 'earth', key: '3', label: 'Dash earth', kind: 'earth-point', position: { x: 560, y: 200 } }
-	],
-	wires: [
-		{ id: 'w1', from: { part: 'sw', terminal: '2' }, to: { part: 'lamp', terminal: 'feed' }, code: 'G/B', size: { mm2: 1 }, lengthM: 0.8 },
-		{ id: 'w2', from: { part: 'lamp', terminal: 'earth' }, to: { part: 'earth', terminal: 'stud' }, code: 'B', size: { mm2: 1 }, lengthM: 0.3 }
-	]
-};
+const loom = panelLampLoom('positive');
 
 async function signUp(page: Page, displayName: string, email: string, password: string) {
 	await page.goto('/signup');

@@ -44,3 +44,21 @@ export async function centreOf(page: Page, selector: string) {
 export async function waitSaved(page: Page): Promise<void> {
 	await expect(page.locator('[data-save-state]')).toHaveAttribute('data-save-state', 'saved', { timeout: 15_000 });
 }
+
+/** An invented three-part loom (panel switch, lamp, dash earth) with a G/B feed and a B earth wire. */
+export function panelLampLoom(earth: 'negative' | 'positive') {
+	return {
+		schemaVersion: 1,
+		vehicle: { systemVoltage: 12, earth },
+		palette: 'trade-letters',
+		parts: [
+			{ id: 'sw', key: '7', label: 'Panel switch', kind: 'switch', terminals: ['1', '2'], params: { positions: [{ name: 'off', closed: [] }, { name: 'on', closed: [['1', '2']] }] }, position: { x: 0, y: 0 } },
+			{ id: 'lamp', key: '12', label: 'Panel lamp', kind: 'lamp', position: { x: 320, y: 60 } },
+			{ id: 'earth', key: '3', label: 'Dash earth', kind: 'earth-point', position: { x: 560, y: 200 } }
+		],
+		wires: [
+			{ id: 'w1', from: { part: 'sw', terminal: '2' }, to: { part: 'lamp', terminal: 'feed' }, code: 'G/B', size: { mm2: 1 }, lengthM: 0.8 },
+			{ id: 'w2', from: { part: 'lamp', terminal: 'earth' }, to: { part: 'earth', terminal: 'stud' }, code: 'B', size: { mm2: 1 }, lengthM: 0.3 }
+		]
+	};
+}

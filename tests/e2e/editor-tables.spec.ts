@@ -1,22 +1,9 @@
 import { expect, test } from '@playwright/test';
-import { newDiagram, signIn, waitSaved, documentOf } from './editor-helpers';
+import { newDiagram, panelLampLoom, signIn, waitSaved, documentOf } from './editor-helpers';
 
 // Screen colours from the trade-letter palette's data (src/lib/circuit/palettes.ts):
 // R red #d32f2f, W white #f5f5f5, G green #2e7d32, B black #1a1a1a.
-const doc = {
-	schemaVersion: 1,
-	vehicle: { systemVoltage: 12, earth: 'negative' },
-	palette: 'trade-letters',
-	parts: [
-		{ id: 'sw', key: '7', label: 'Panel switch', kind: 'switch', terminals: ['1', '2'], params: { positions: [{ name: 'off', closed: [] }, { name: 'on', closed: [['1', '2']] }] }, position: { x: 0, y: 0 } },
-		{ id: 'lamp', key: '12', label: 'Panel lamp', kind: 'lamp', position: { x: 320, y: 60 } },
-		{ id: 'earth', key: '3', label: 'Dash earth', kind: 'earth-point', position: { x: 560, y: 200 } }
-	],
-	wires: [
-		{ id: 'w1', from: { part: 'sw', terminal: '2' }, to: { part: 'lamp', terminal: 'feed' }, code: 'G/B', size: { mm2: 1 }, lengthM: 0.8 },
-		{ id: 'w2', from: { part: 'lamp', terminal: 'earth' }, to: { part: 'earth', terminal: 'stud' }, code: 'B', size: { mm2: 1 }, lengthM: 0.3 }
-	]
-};
+const doc = panelLampLoom('negative');
 
 test('editing a code in the wire list changes the drawn stripe', async ({ page }) => {
 	await signIn(page);
