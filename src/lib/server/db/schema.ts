@@ -290,6 +290,90 @@ export const comments = pgTable(
 	(t) => [index('comments_diagram_idx').on(t.diagramId, t.createdAt)]
 );
 
+// A restorer's own wire colour palettes, kept with their account and usable in any diagram
+// (a diagram copies the palette in, so a shared diagram reads the same to everyone).
+export const palettes = pgTable(
+	'palettes',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		ownerId: text('owner_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		name: text('name').notNull(),
+		// [{ code, name, display }] as in the circuit core's PaletteColourSchema.
+		colours: jsonb('colours').notNull(),
+		createdAt: createdAt(),
+		updatedAt: updatedAt()
+	},
+	(t) => [index('palettes_owner_idx').on(t.ownerId), uniqueIndex('palettes_owner_name').on(t.ownerId, t.name)]
+);
+
+export const diagnosisStatus = pgEnum('diagnosis_status', ['open', 'concluded']);
+// One fault hunt on one vehicle: planned on the diagram as it stood at `diagramRevision` (the
+// document is read from diagram_revisions, so later edits do not move the plan under the user).
+export const diagnoses = pgTable(
+	'diagnoses',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		diagramId: uuid('diagram_id')
+			.notNull()
+			.references(() => diagrams.id, { onDelete: 'cascade' }),
+		vehicleId: uuid('vehicle_id')
+			.notNull()
+			.references(() => vehicles.id, { onDelete: 'cascade' }),
+		startedBy: text('started_by').references(() => users.id, { onDelete: 'set null' }),
+		diagramRevision: integer('diagram_revision').notNull(),
+		title: text('title').notNull(),
+		scenario: jsonb('scenario').notNull(),
+		// [{ part, mark }]
+		marks: jsonb('marks').notNull(),
+		// A built-in meter profile id or a whole profile.
+		meter: jsonb('meter').notNull(),
+		status: diagnosisStatus('status').notNull().default('open'),
+		// The suspect id the user concluded on (may be null: "found something else").
+		foundSuspect: text('found_suspect'),
+		conclusion: text('conclusion').notNull().default(''),
+		// ["Instrument voltage stabilizer (19)", ...] — free words, what went into the vehicle.
+		partsReplaced: jsonb('parts_replaced').notNull().default(sql`'[]'::jsonb`),
+		// Counts changes to marks/scenario/status, so two phones cannot overwrite each other blind.
+		version: integer('version').notNull().default(1),
+		concludedAt: timestamp('concluded_at', { withTimezone: true, mode: 'date' }),
+		createdAt: createdAt(),
+		updatedAt: updatedAt()
+	},
+	(t) => [index('diagnoses_vehicle_idx').on(t.vehicleId, t.createdAt), index('diagnoses_diagram_idx').on(t.diagramId)]
+);
+
+export const readingOutcome = pgEnum('reading_outcome', ['value', 'over-range', 'unreachable']);
+// Each reading the restorer took. `clientId` is made by the browser when the reading is typed,
+// so a reading queued offline and sent twice is stored once (unique per diagnosis).
+export const diagnosisReadings = pgTable(
+	'diagnosis_readings',
+	{
+		id: bigserial('id', { mode: 'number' }).primaryKey(),
+		diagnosisId: uuid('diagnosis_id')
+			.notNull()
+			.references(() => diagnoses.id, { onDelete: 'cascade' }),
+		clientId: uuid('client_id').notNull(),
+		probeId: text('probe_id').notNull(),
+		outcome: readingOutcome('outcome').notNull(),
+		value: doublePrecision('value'),
+		unit: text('unit').notNull().default(''),
+		note: text('note').notNull().default(''),
+		takenBy: text('taken_by').references(() => users.id, { onDelete: 'set null' }),
+		// When it was read off the meter (the browser's clock), and when the server got it.
+		takenAt: timestamp('taken_at', { withTimezone: true, mode: 'date' }).notNull(),
+		// A later reading of the same probe replaces it in the plan; the old one stays, struck.
+		supersededAt: timestamp('superseded_at', { withTimezone: true, mode: 'date' }),
+		createdAt: createdAt()
+	},
+	(t) => [
+		uniqueIndex('diagnosis_readings_client').on(t.diagnosisId, t.clientId),
+		index('diagnosis_readings_diagnosis_idx').on(t.diagnosisId, t.takenAt),
+		check('diagnosis_readings_value', sql`(${t.outcome} = 'value') = (${t.value} is not null)`)
+	]
+);
+
 export type User = typeof users.$inferSelect;
 export type Club = typeof clubs.$inferSelect;
 export type ClubMember = typeof clubMembers.$inferSelect;
@@ -301,3 +385,6 @@ export type Vehicle = typeof vehicles.$inferSelect;
 export type Diagram = typeof diagrams.$inferSelect;
 export type DiagramRevision = typeof diagramRevisions.$inferSelect;
 export type ManualPage = typeof manualPages.$inferSelect;
+export type Palette = typeof palettes.$inferSelect;
+export type Diagnosis = typeof diagnoses.$inferSelect;
+export type DiagnosisReading = typeof diagnosisReadings.$inferSelect;
