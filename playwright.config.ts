@@ -6,7 +6,7 @@ const origin = `http://localhost:${port}`;
 // Debian's chromium, never a downloaded browser (scripts/test.sh installs it when missing).
 export default defineConfig({
 	testDir: 'tests/e2e',
-	outputDir: '.data/test/e2e-results',
+	outputDir: process.env.LOOM_TEST_OUT ? `${process.env.LOOM_TEST_OUT}/e2e-results` : '.data/test/e2e-results',
 	timeout: 60_000,
 	expect: { timeout: 10_000 },
 	fullyParallel: false,
@@ -30,7 +30,7 @@ export default defineConfig({
 	},
 	webServer: {
 		// Migrate and seed the e2e database, then serve the built app (exec: no wrapper left behind).
-		command: 'node --import tsx scripts/migrate.ts && node --import tsx scripts/seed.ts && exec node build',
+		command: 'node --import tsx scripts/migrate.ts && node --import tsx scripts/seed.ts && exec node ' + (process.env.LOOM_BUILD_DIR ?? 'build'),
 		url: `${origin}/api/health`,
 		reuseExistingServer: false,
 		timeout: 120_000,

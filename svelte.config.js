@@ -5,7 +5,8 @@ import { vitePreprocess } from '@sveltejs/vite-plugin-svelte';
 const config = {
 	preprocess: vitePreprocess(),
 	kit: {
-		adapter: adapter(),
+		// LOOM_BUILD_DIR lets two checkouts' test runs build side by side without clashing.
+		adapter: adapter({ out: process.env.LOOM_BUILD_DIR ?? 'build' }),
 		// SvelteKit's origin check (CSRF) is on by default; no trustedOrigins are added.
 		typescript: {
 			// Type-check scripts, tests and config files along with the app.

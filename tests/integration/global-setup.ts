@@ -16,7 +16,7 @@ declare module 'vitest' {
 export async function setup(project: TestProject) {
 	if (!process.env.DATABASE_URL) throw new Error('integration tests need DATABASE_URL (scripts/test.sh sets it)');
 	execFileSync('node', ['--import', 'tsx', 'scripts/migrate.ts'], { stdio: 'inherit' });
-	server = spawn('node', ['build'], {
+	server = spawn('node', [process.env.LOOM_BUILD_DIR ?? 'build'], {
 		env: { ...process.env, PORT: String(port), ORIGIN: origin, NODE_ENV: 'production', LOOM_DEV_MAIL: '1', BODY_SIZE_LIMIT: '16M' },
 		stdio: ['ignore', 'ignore', 'inherit']
 	});
