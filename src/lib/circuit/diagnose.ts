@@ -87,7 +87,7 @@ interface Candidate {
 }
 
 /** Add a fuse the fault overloads (current above its rating) as blown, until none is. */
-function settleFuses(base: Base, c: Circuit, h: Candidate): Candidate {
+export function settleFuses<H extends Pick<Candidate, 'changes' | 'label'>>(base: Base, c: Circuit, h: H): H {
 	const fuses = c.doc.parts.filter((p) => p.kind === 'fuse');
 	let cur = h;
 	for (let round = 0; round < 3; round++) {
@@ -105,6 +105,42 @@ function settleFuses(base: Base, c: Circuit, h: Candidate): Candidate {
 		cur = { ...cur, changes: [...cur.changes, { type: 'element', element: worst.element, ohms: null }], label: `${cur.label} (fuse ${worst.key} blows)` };
 	}
 	return cur;
+}
+
+/**
+ * Every probe's table reading under each candidate (rows: probes; columns: candidates) and in the
+ * healthy circuit, from one factorisation per setup (as given, battery off, a part taken out).
+ */
+export function probeReadings(
+	doc: HarnessDocument,
+	scenario: Scenario,
+	c: Circuit,
+	base: Base,
+	cands: readonly { changes: Change[] }[],
+	specs: readonly ProbeSpec[],
+	profile: MeterProfile,
+	fallbacks: FallbackCount = emptyFallbacks()
+): { readings: number[][]; healthy: number[] } {
+	const parts = new Map(doc.parts.map((p) => [p.id, p]));
+	const bySetup = new Map<SetupId, number[]>();
+	specs.forEach((s, i) => (bySetup.get(s.setup) ?? bySetup.set(s.setup, []).get(s.setup)!).push(i));
+	const readings: number[][] = specs.map(() => []);
+	const healthy: number[] = specs.map(() => 0);
+	for (const [setup, idx] of bySetup) {
+		// A part taken out: its own element opens, its holder and wires stay (the bulb out of its socket).
+		const outPart = setup.startsWith('part-out:') ? parts.get(setup.slice('part-out:'.length)) : undefined;
+		const outEl = outPart ? observedElement(c, outPart) : null;
+		const sc =
+			setup === 'as-given' ? c : outEl ? faultedCircuit(c, [{ type: 'element', element: outEl.element, ohms: null }]) : buildCircuit(doc, setupScenario(doc, scenario, setup));
+		const b = setup === 'as-given' ? base : new Base(sc);
+		const none = [{ changes: [] as Change[] }];
+		const rows = predictReadings(b, [...cands, ...none], idx.map((i) => specs[i].meter), fallbacks);
+		idx.forEach((pi, r) => {
+			readings[pi] = cands.map((_, h) => tableReading(specs[pi], rows[r][h], profile));
+			healthy[pi] = tableReading(specs[pi], rows[r][cands.length], profile);
+		});
+	}
+	return { readings, healthy };
 }
 
 export function diagnose(input: DiagnoseInput): DiagnoseResult {
@@ -218,24 +254,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		const only = new Set(input.onlyProbes);
 		specs = specs.filter((s) => only.has(s.id));
 	}
-	const bySetup = new Map<SetupId, number[]>();
-	specs.forEach((s, i) => (bySetup.get(s.setup) ?? bySetup.set(s.setup, []).get(s.setup)!).push(i));
-	const readings: number[][] = specs.map(() => []);
-	const healthyReading: number[] = specs.map(() => 0);
-	for (const [setup, idx] of bySetup) {
-		// A part taken out: its own element opens, its holder and wires stay (the bulb out of its socket).
-		const outPart = setup.startsWith('part-out:') ? parts.get(setup.slice('part-out:'.length)) : undefined;
-		const outEl = outPart ? observedElement(c, outPart) : null;
-		const sc =
-			setup === 'as-given' ? c : outEl ? faultedCircuit(c, [{ type: 'element', element: outEl.element, ohms: null }]) : buildCircuit(doc, setupScenario(doc, scenario, setup));
-		const b = setup === 'as-given' ? base : new Base(sc);
-		const none = [{ changes: [] as Change[] }];
-		const rows = predictReadings(b, [...cands, ...none], idx.map((i) => specs[i].meter), fallbacks);
-		idx.forEach((pi, r) => {
-			readings[pi] = cands.map((_, h) => tableReading(specs[pi], rows[r][h], profile));
-			healthyReading[pi] = tableReading(specs[pi], rows[r][cands.length], profile);
-		});
-	}
+	const { readings, healthy: healthyReading } = probeReadings(doc, scenario, c, base, cands, specs, profile, fallbacks);
 	const round = (x: number) => Math.round(x * 1e6) / 1e6;
 	const table: PredictionTable = {
 		suspects: suspects.map((s) => ({ id: s.id, prior: s.chance, label: s.label })),

@@ -1,0 +1,62 @@
+/**
+ * What a probe of the plan would read if a given fault were there (or none): the readings a
+ * person would see, for trying a plan out, for practice hunts and for checking the demo's
+ * walk-through. The same probes, setups and fuse rule as diagnose.ts, over the whole harness.
+ */
+import { buildCircuit } from './circuit';
+import { DiagnoseError, probeReadings, settleFuses } from './diagnose';
+import { generateHypotheses, type Change, type Region } from './faults';
+import { ENTRY_DMM, type MeterProfile } from './meter-profiles';
+import { nodeOfTerminal } from './nets';
+import { Base } from './predict';
+import { candidateProbes } from './probes';
+import type { Scenario } from './scenario';
+import type { HarnessDocument } from './schema';
+
+export interface WhatIfInput {
+	doc: HarnessDocument;
+	scenario: Scenario;
+	/** Probe ids as the plan names them, e.g. `volts:fuse-ign:out`, `joint:w-stab-in:to`. */
+	probes: readonly string[];
+	/** A fault id as the plan's suspects name them, e.g. `joint:w-stab-in:to:20`; none = healthy. */
+	fault?: string;
+	meter?: MeterProfile;
+}
+
+export interface WhatIfReading {
+	id: string;
+	label: string;
+	unit: string;
+	reading: number;
+}
+
+function wholeHarness(doc: HarnessDocument): Region {
+	const nodes = new Set<string>();
+	for (const p of doc.parts) for (const t of p.terminals) nodes.add(nodeOfTerminal(p, t));
+	return { parts: new Set(doc.parts.map((p) => p.id)), wires: new Set(doc.wires.map((w) => w.id)), nodes };
+}
+
+export function readingsIf(input: WhatIfInput): WhatIfReading[] {
+	const { doc, scenario } = input;
+	const profile = input.meter ?? ENTRY_DMM;
+	const c = buildCircuit(doc, scenario);
+	const base = new Base(c);
+	// Probes with a part taken out name the part: `volts-out:<part>:<terminal>`.
+	const partOut = [...new Set(input.probes.filter((id) => /^(volts|lamp)-out:/.test(id)).map((id) => id.split(':')[1]))].filter((id) => doc.parts.some((p) => p.id === id));
+	const all = candidateProbes(doc, scenario, c, base.solution, wholeHarness(doc), { profile, partOut });
+	const byId = new Map(all.map((s) => [s.id, s]));
+	const issues: { path: string; message: string }[] = [];
+	input.probes.forEach((id, i) => {
+		if (!byId.has(id)) issues.push({ path: `probes[${i}]`, message: `no probe "${id}" on this diagram (ids as the probe plan names them, e.g. "${all[0]?.id ?? 'volts:<part>:<terminal>'}")` });
+	});
+	let changes: Change[] = [];
+	if (input.fault) {
+		const h = generateHypotheses(c).find((x) => x.id === input.fault);
+		if (!h) issues.push({ path: 'fault', message: `no fault "${input.fault}" on this diagram (ids as the probe plan's suspects name them)` });
+		else changes = settleFuses(base, c, { changes: h.changes, label: h.label }).changes;
+	}
+	if (issues.length) throw new DiagnoseError(issues);
+	const specs = input.probes.map((id) => byId.get(id)!);
+	const { readings } = probeReadings(doc, scenario, c, base, [{ changes }], specs, profile);
+	return specs.map((s, i) => ({ id: s.id, label: s.label, unit: s.unit, reading: Math.round(readings[i][0] * 1e6) / 1e6 }));
+}
