@@ -332,6 +332,8 @@ export const diagnoses = pgTable(
 		status: diagnosisStatus('status').notNull().default('open'),
 		// The suspect id the user concluded on (may be null: "found something else").
 		foundSuspect: text('found_suspect'),
+		// Its words as the plan put them, kept so the timeline reads without planning again.
+		foundLabel: text('found_label').notNull().default(''),
 		conclusion: text('conclusion').notNull().default(''),
 		// ["Instrument voltage stabilizer (19)", ...] — free words, what went into the vehicle.
 		partsReplaced: jsonb('parts_replaced').notNull().default(sql`'[]'::jsonb`),

@@ -1,0 +1,1 @@
+ALTER TABLE "diagnoses" ADD COLUMN "found_label" text DEFAULT '' NOT NULL;
