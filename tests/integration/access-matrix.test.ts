@@ -29,6 +29,9 @@ interface Fixture {
 	/** A second manual page, so the editor's DELETE and the owner's each have one to delete. */
 	sparePage: string;
 	club: string;
+	/** A palette in the owner's library, and a second one for the DELETE row. */
+	palette: string;
+	sparePalette: string;
 	linkToken: string;
 	invitation: string;
 }
@@ -116,6 +119,19 @@ const TABLE: Record<string, Entry> = {
 			GET: { expect: ownerOnly(200, 401) },
 			PATCH: { body: {}, expect: ownerOnly(400, 401) },
 			DELETE: { url: (f) => `/api/vehicles/${f.spareVehicle}`, expect: ownerOnly(204, 401) }
+		}
+	},
+	// Palettes are the account's own and never shared: another account (even an admin) gets 404.
+	'/api/palettes': {
+		url: () => '/api/palettes',
+		api: { GET: { expect: signedIn(200, 401) }, POST: { body: {}, expect: signedIn(400, 401) } }
+	},
+	'/api/palettes/[id]': {
+		url: (f) => `/api/palettes/${f.palette}`,
+		api: {
+			GET: { expect: ownerOnly(200, 401) },
+			PUT: { body: {}, expect: ownerOnly(400, 401) },
+			DELETE: { url: (f) => `/api/palettes/${f.sparePalette}`, expect: ownerOnly(204, 401) }
 		}
 	},
 	'/api/diagrams': {
@@ -251,7 +267,13 @@ beforeAll(async () => {
 	const link = await form(`/diagrams/${main}/share?/link`, { label: 'matrix' }, owner.cookie);
 	const linkToken = (await link.text()).match(/\/s\/([A-Za-z0-9_-]{43})/)![1];
 
-	fx = { vehicle: v, spareVehicle, diagram: main, spareDiagram: spare, page, sparePage, club, linkToken, invitation };
+	const palette = async (name: string) => {
+		const res = await api('POST', '/api/palettes', owner.cookie, { name, colours: [{ code: 'G', name: 'green', display: '#2e7d32' }] });
+		expect(res.status).toBe(201);
+		return (await res.json()).palette.id as string;
+	};
+
+	fx = { vehicle: v, spareVehicle, diagram: main, spareDiagram: spare, page, sparePage, club, palette: await palette('Matrix codes'), sparePalette: await palette('Matrix spare codes'), linkToken, invitation };
 }, 120_000);
 
 afterAll(async () => {

@@ -20,11 +20,13 @@ import {
 	clubs,
 	diagramShares,
 	diagrams,
+	palettes,
 	shareLinks,
 	vehicles,
 	type Club,
 	type ClubMember,
 	type Diagram,
+	type Palette,
 	type ShareLink,
 	type Vehicle
 } from './db/schema';
@@ -129,6 +131,15 @@ export async function requireVehicle(locals: App.Locals, vehicleId: string, leve
 	if (!vehicle || vehicle.ownerId !== user.id) error(404, NOT_FOUND);
 	void level;
 	return vehicle;
+}
+
+/** A palette in the account's own library. Palettes are never shared: another account's is 404. */
+export async function requirePalette(locals: App.Locals, paletteId: string): Promise<Palette> {
+	const user = requireUser(locals);
+	if (!isId(paletteId)) error(404, NOT_FOUND);
+	const [palette] = await db.select().from(palettes).where(eq(palettes.id, paletteId));
+	if (!palette || palette.ownerId !== user.id) error(404, NOT_FOUND);
+	return palette;
 }
 
 /** A live read-only link (not revoked, not expired) by its token, or null. */
