@@ -10,6 +10,9 @@ import { ENTRY_DMM } from '$lib/circuit/meter-profiles';
 import { lampResistance } from '$lib/circuit/parts';
 import { Base, predictReadings, type Meter } from '$lib/circuit/predict';
 import type { HarnessDocument } from '$lib/circuit/schema';
+import { DiagnoseError, settleFuses } from '$lib/circuit/diagnose';
+import { generateHypotheses, type Change } from '$lib/circuit/faults';
+import { readingsIf } from '$lib/circuit/what-if';
 import type { RequestHandler } from './$types';
 
 const Point = z.union([z.literal('earth'), z.literal('chassis'), z.object({ part: z.string().min(1), terminal: z.string().min(1) })]);
@@ -19,7 +22,16 @@ const Probe = z.object({
 	at: Point,
 	to: Point.default('earth')
 });
-const Body = z.object({ scenario: z.unknown().optional(), probes: z.array(Probe).min(1).max(2000) });
+const Body = z
+	.object({
+		scenario: z.unknown().optional(),
+		probes: z.array(Probe).max(2000).default([]),
+		// Probe ids as the probe plan names them (joints, drops, part-out readings included).
+		planProbes: z.array(z.string().min(1).max(200)).max(2000).default([]),
+		// A fault id as the probe plan's suspects name them: readings as if it were there.
+		fault: z.string().min(1).max(200).optional()
+	})
+	.refine((b) => b.probes.length + b.planProbes.length > 0, { path: ['probes'], message: 'name at least one probe (probes or planProbes)' });
 
 function checkPoint(doc: HarnessDocument, p: z.output<typeof Point>, path: string) {
 	if (typeof p === 'string') return [];
@@ -30,9 +42,9 @@ function checkPoint(doc: HarnessDocument, p: z.output<typeof Point>, path: strin
 }
 
 /**
- * POST /api/diagrams/:id/predict { scenario?, probes: [{ id, kind, at, to? }] }
- * → { revision, readings: [{ id, reading, unit }] } for the healthy circuit (entry-level DMM,
- * 5 W test lamp; ohms with the battery disconnected).
+ * POST /api/diagrams/:id/predict { scenario?, probes?: [{ id, kind, at, to? }], planProbes?: [id], fault? }
+ * → { revision, readings: [{ id, reading, unit }] } for the healthy circuit, or with `fault` as if
+ * that fault were there (entry-level DMM, 5 W test lamp; ohms with the battery disconnected).
  */
 export const POST: RequestHandler = endpoint(async ({ locals, params, request }) => {
 	const { diagram } = await requireDiagram(locals, params.id, 'view');
@@ -42,7 +54,15 @@ export const POST: RequestHandler = endpoint(async ({ locals, params, request })
 	const doc = checked.doc;
 	const sc = checkScenario(doc, input.scenario ?? defaultScenario(doc));
 	if (!sc.ok) throw new BadRequest('The scenario has problems.', sc.errors.map((e) => ({ path: under('scenario', e.path), message: e.message })));
-	const issues = input.probes.flatMap((p, i) => [...checkPoint(doc, p.at, `probes[${i}].at`), ...checkPoint(doc, p.to, `probes[${i}].to`)]);
+	let changes: Change[] = [];
+	const issues: { path: string; message: string }[] = [];
+	if (input.fault) {
+		const c = buildCircuit(doc, sc.scenario);
+		const h = generateHypotheses(c).find((x) => x.id === input.fault);
+		if (!h) issues.push({ path: 'fault', message: `no fault "${input.fault}" on this diagram (ids as the probe plan's suspects name them)` });
+		else changes = settleFuses(new Base(c), c, { changes: h.changes, label: h.label }).changes;
+	}
+	issues.push(...input.probes.flatMap((p, i) => [...checkPoint(doc, p.at, `probes[${i}].at`), ...checkPoint(doc, p.to, `probes[${i}].to`)]));
 	if (issues.length) throw new BadRequest('Some probes name points that are not in the diagram.', issues);
 	const meterOf = (p: z.output<typeof Probe>): Meter =>
 		p.kind === 'lamp'
@@ -55,7 +75,7 @@ export const POST: RequestHandler = endpoint(async ({ locals, params, request })
 	const out: { id: string; reading: number | 'OL'; unit: string }[] = input.probes.map((p) => ({ id: p.id, reading: 0, unit: p.kind === 'lamp' ? '%' : p.kind === 'ohms' ? 'Ω' : 'V' }));
 	const run = (scenario: typeof sc.scenario, list: typeof powered) => {
 		if (!list.length) return;
-		const rows = predictReadings(new Base(buildCircuit(doc, scenario)), [{ changes: [] }], list.map(([p]) => meterOf(p)));
+		const rows = predictReadings(new Base(buildCircuit(doc, scenario)), [{ changes }], list.map(([p]) => meterOf(p)));
 		list.forEach(([p, i], r) => {
 			const v = rows[r][0];
 			out[i].reading = p.kind === 'lamp' ? v * 100 : p.kind === 'ohms' && !(v <= ENTRY_DMM.ohms.overLimit) ? 'OL' : v;
@@ -64,5 +84,14 @@ export const POST: RequestHandler = endpoint(async ({ locals, params, request })
 	run(sc.scenario, powered);
 	const batteries = doc.parts.filter((p) => p.kind === 'battery').map((p) => p.id);
 	run({ ...sc.scenario, engineRunning: false, disconnected: [...sc.scenario.disconnected, ...batteries] }, ohms);
-	return json({ revision: diagram.revision, readings: out });
+	let planned: { id: string; reading: number; unit: string }[] = [];
+	if (input.planProbes.length) {
+		try {
+			planned = readingsIf({ doc, scenario: sc.scenario, probes: input.planProbes, fault: input.fault }).map((r) => ({ id: r.id, reading: r.reading, unit: r.unit }));
+		} catch (e) {
+			if (e instanceof DiagnoseError) throw new BadRequest('Some probes name points that are not in the diagram.', e.issues.map((i) => ({ ...i, path: i.path.replace(/^probes/, 'planProbes') })));
+			throw e;
+		}
+	}
+	return json({ revision: diagram.revision, readings: [...out, ...planned] });
 });

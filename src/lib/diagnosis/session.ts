@@ -1,0 +1,86 @@
+// A stored diagnosis as the planner sees it: the marks, scenario and meter it was started with,
+// and the readings taken so far (the latest of each probe counts; struck ones do not). Runs the
+// same in the server (API, checklist, PDF) and in the browser (the diagnosis page, offline too).
+import { diagnose, type DiagnoseResult } from '$lib/circuit/diagnose';
+import { ENTRY_DMM, METER_PROFILES, MeterProfileSchema, type MeterProfile } from '$lib/circuit/meter-profiles';
+import type { Scenario } from '$lib/circuit/scenario';
+import type { HarnessDocument } from '$lib/circuit/schema';
+import type { PartMark } from '$lib/circuit/symptoms';
+
+export type ReadingOutcome = 'value' | 'over-range' | 'unreachable';
+
+export interface ReadingJson {
+	id?: number;
+	clientId: string;
+	probeId: string;
+	outcome: ReadingOutcome;
+	value: number | null;
+	unit: string;
+	note: string;
+	takenAt: string;
+	takenBy?: string | null;
+	struck?: boolean;
+	/** Not yet on the server (typed offline). */
+	queued?: boolean;
+}
+
+export interface DiagnosisJson {
+	id: string;
+	diagramId: string;
+	vehicleId: string;
+	diagramRevision: number;
+	title: string;
+	scenario: Scenario;
+	marks: PartMark[];
+	meter: string | MeterProfile;
+	status: 'open' | 'concluded';
+	foundSuspect: string | null;
+	foundLabel: string;
+	conclusion: string;
+	partsReplaced: string[];
+	version: number;
+	startedBy: string | null;
+	createdAt: string;
+	updatedAt: string;
+	concludedAt: string | null;
+}
+
+export function meterOf(meter: DiagnosisJson['meter']): MeterProfile {
+	if (typeof meter === 'string') return METER_PROFILES[meter] ?? ENTRY_DMM;
+	const parsed = MeterProfileSchema.safeParse(meter);
+	return parsed.success ? parsed.data : ENTRY_DMM;
+}
+
+/** Probe → what the planner is told: the latest reading of each probe that is not struck. */
+export function readingsForPlan(readings: readonly ReadingJson[]): Record<string, number | 'OL' | 'unreachable'> {
+	const latest = new Map<string, ReadingJson>();
+	for (const r of readings) {
+		if (r.struck) continue;
+		const prev = latest.get(r.probeId);
+		if (!prev || r.takenAt > prev.takenAt || (r.takenAt === prev.takenAt && (r.id ?? Infinity) > (prev.id ?? Infinity))) latest.set(r.probeId, r);
+	}
+	const out: Record<string, number | 'OL' | 'unreachable'> = {};
+	for (const [probe, r] of latest) out[probe] = r.outcome === 'value' ? (r.value as number) : r.outcome === 'over-range' ? 'OL' : 'unreachable';
+	return out;
+}
+
+export interface DiagnosisPlan {
+	result: DiagnoseResult;
+	/** The readings the plan used (probe → value). */
+	used: Record<string, number | 'OL' | 'unreachable'>;
+}
+
+export function planDiagnosis(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'>, readings: readonly ReadingJson[]): DiagnosisPlan {
+	const used = readingsForPlan(readings);
+	const result = diagnose({ doc, scenario: d.scenario, marks: d.marks, meter: meterOf(d.meter), readings: used });
+	return { result, used };
+}
+
+/** Where the hunt stands, in words for the page's heading. */
+export function standing(plan: DiagnoseResult): { kind: 'none' | 'narrowing' | 'one' | 'group'; remaining: number } {
+	const remaining = plan.readings ? plan.readings.remaining.length : plan.suspects.length;
+	if (remaining === 0) return { kind: 'none', remaining };
+	if (remaining === 1) return { kind: 'one', remaining };
+	if (!plan.plan.steps.length) return { kind: 'group', remaining };
+	return { kind: 'narrowing', remaining };
+}
