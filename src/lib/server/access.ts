@@ -18,6 +18,7 @@ import { db } from './db';
 import {
 	clubMembers,
 	clubs,
+	diagnoses,
 	diagramShares,
 	diagrams,
 	palettes,
@@ -25,6 +26,7 @@ import {
 	vehicles,
 	type Club,
 	type ClubMember,
+	type Diagnosis,
 	type Diagram,
 	type Palette,
 	type ShareLink,
@@ -194,6 +196,24 @@ export async function requireDiagram(
 	}
 	found.set(row.diagram, { userId: user?.id ?? null, level: have });
 	return { ...row, level: have };
+}
+
+/**
+ * A diagnosis, reached through its diagram: looking at it needs view on the diagram, taking
+ * readings or concluding needs edit. Read-only links do not reach diagnoses (they show one
+ * drawing, not the owner's fault hunts), so a signed-in account is required.
+ */
+export async function requireDiagnosis(
+	locals: App.Locals,
+	diagnosisId: string,
+	level: 'view' | 'edit'
+): Promise<{ diagnosis: Diagnosis; diagram: Diagram; vehicle: Vehicle; level: Level }> {
+	requireUser(locals);
+	if (!isId(diagnosisId)) error(404, NOT_FOUND);
+	const [diagnosis] = await db.select().from(diagnoses).where(eq(diagnoses.id, diagnosisId));
+	if (!diagnosis) error(404, NOT_FOUND);
+	const { diagram, vehicle, level: have } = await requireDiagram({ ...locals, linkToken: null }, diagnosis.diagramId, level);
+	return { diagnosis, diagram, vehicle, level: have };
 }
 
 /** The diagram behind a read-only link, for the /s/[token] page and its API; 404 when dead. */
