@@ -1,33 +1,43 @@
 import { sql } from 'drizzle-orm';
 import { BUILT_IN_PALETTES, PaletteSchema, type Palette } from '$lib/circuit/colours';
+import { libraryPaletteId } from '$lib/editor/palette-input';
 import { requireUser, visibleDiagrams } from '$lib/server/access';
 import { db } from '$lib/server/db';
 import { diagrams } from '$lib/server/db/schema';
+import * as palettes from '$lib/server/palettes';
 import type { PageServerLoad } from './$types';
 
-// Colour palettes: the built-in ones, and each palette of the person's own kept inside one of
-// their diagrams (a diagram's document carries either a built-in palette's id or a palette).
+// Colour palettes: the built-in ones (read-only), the account's own library, and palettes kept
+// only inside one of their diagrams (made before the library, or imported with a document).
+// Each says which of the person's diagrams use it: a diagram carries a built-in id or a copy.
 export const load: PageServerLoad = async ({ locals }) => {
 	const user = requireUser(locals);
-	const rows = await db
-		.select({ id: diagrams.id, title: diagrams.title, revision: diagrams.revision, palette: sql<unknown>`${diagrams.document}->'palette'` })
-		.from(diagrams)
-		.where(visibleDiagrams(user))
-		.orderBy(diagrams.title);
-	const own: { palette: Palette; diagrams: { id: string; title: string }[] }[] = [];
+	const [rows, library] = await Promise.all([
+		db
+			.select({ id: diagrams.id, title: diagrams.title, palette: sql<unknown>`${diagrams.document}->'palette'` })
+			.from(diagrams)
+			.where(visibleDiagrams(user))
+			.orderBy(diagrams.title),
+		palettes.listFor(user)
+	]);
 	const usage = new Map<string, { id: string; title: string }[]>();
+	const inDiagrams: { palette: Palette; diagram: { id: string; title: string } }[] = [];
+	const libraryIds = new Set(library.map((p) => libraryPaletteId(p.id)));
 	for (const r of rows) {
-		if (typeof r.palette === 'string' || r.palette == null) {
-			const id = typeof r.palette === 'string' ? r.palette : 'trade-letters';
-			usage.set(id, [...(usage.get(id) ?? []), { id: r.id, title: r.title }]);
-			continue;
+		const diagram = { id: r.id, title: r.title };
+		let id: string;
+		if (typeof r.palette === 'string' || r.palette == null) id = typeof r.palette === 'string' ? r.palette : 'trade-letters';
+		else {
+			const parsed = PaletteSchema.safeParse(r.palette);
+			if (!parsed.success) continue;
+			id = parsed.data.id;
+			if (!libraryIds.has(id)) inDiagrams.push({ palette: parsed.data, diagram });
 		}
-		const parsed = PaletteSchema.safeParse(r.palette);
-		if (parsed.success) own.push({ palette: parsed.data, diagrams: [{ id: r.id, title: r.title }] });
+		usage.set(id, [...(usage.get(id) ?? []), diagram]);
 	}
 	return {
 		builtIn: Object.values(BUILT_IN_PALETTES).map((p) => ({ palette: p, diagrams: usage.get(p.id) ?? [] })),
-		own,
-		diagrams: rows.map((r) => ({ id: r.id, title: r.title }))
+		library: library.map((p) => ({ ...p, diagrams: usage.get(libraryPaletteId(p.id)) ?? [] })),
+		inDiagrams
 	};
 };
