@@ -4,6 +4,7 @@ import {
 	addParts,
 	addTerminal,
 	addWire,
+	changeKind,
 	changePalette,
 	copyItems,
 	createPart,
@@ -12,6 +13,7 @@ import {
 	moveParts,
 	nextKey,
 	pasteItems,
+	recodeFor,
 	removeTerminal,
 	renameTerminal,
 	updatePart,
@@ -171,5 +173,79 @@ describe('copy and paste', () => {
 		expect(wire.from.part).toBe(pasted[0].id);
 		expect(wire.to.part).toBe(pasted[1].id);
 		expect(wire.code).toBe('R/W');
+	});
+});
+
+describe('changing a part\'s kind', () => {
+	it('keeps key number, label and wires on terminals of the same name (lamp → motor: feed, earth)', () => {
+		const doc = sample();
+		const r = changeKind(doc, 'lamp', 'motor');
+		const after = valid(r.doc);
+		const motor = after.parts.find((p) => p.id === 'lamp')!;
+		expect(motor).toMatchObject({ kind: 'motor', key: '3', label: 'Sidelamp', terminals: ['feed', 'earth'], position: { x: 400, y: 0 } });
+		// 4 Ω: the motor's own default (parts.ts); a lamp has no resistance value to carry over.
+		expect(motor.kind === 'motor' && motor.params.resistance).toBe(4);
+		expect(r.dropped).toEqual([]);
+		expect(after.wires.map((w) => w.id)).toEqual(['w1', 'w2', 'w3']);
+	});
+
+	it('reports the wires on terminals the new kind lacks, and drops only those (lamp → fuse: in, out)', () => {
+		const r = changeKind(sample(), 'lamp', 'fuse');
+		// The lamp had w2 on feed and w3 on earth; a fuse has neither name.
+		expect(r.dropped.map((w) => w.id)).toEqual(['w2', 'w3']);
+		expect(valid(r.doc).wires.map((w) => w.id)).toEqual(['w1']);
+	});
+
+	it('keeps a shared value that fits, and names its own terminals from the old ones (fuse → switch)', () => {
+		const doc = updatePart(sample(), 'fuse', { params: { resistance: 0.02 } });
+		const r = changeKind(doc, 'fuse', 'switch');
+		const sw = valid(r.doc).parts.find((p) => p.id === 'fuse')!;
+		expect(sw.terminals).toEqual(['in', 'out']);
+		// Two positions: off joins nothing, on joins in–out, so the circuit still conducts as with the fuse.
+		expect(sw.kind === 'switch' && sw.params.positions).toEqual([
+			{ name: 'off', closed: [] },
+			{ name: 'on', closed: [['in', 'out']] }
+		]);
+		expect(r.dropped).toEqual([]);
+		// gauge → resistor: both have a resistance (58 Ω gauge heater, parts.ts), kept.
+		const g = addParts(emptyDocument({ systemVoltage: 12, earth: 'negative' }), [createPart(emptyDocument({ systemVoltage: 12, earth: 'negative' }), 'gauge', { x: 0, y: 0 }, { id: 'g', key: '1' })]);
+		const res = valid(changeKind(g, 'g', 'resistor').doc).parts[0];
+		expect(res.kind === 'resistor' && res.params.resistance).toBe(58);
+	});
+
+	it('tops a one-terminal part up to two when it becomes a splice', () => {
+		const r = changeKind(sample(), 'earth', 'splice');
+		expect(valid(r.doc).parts.find((p) => p.id === 'earth')!.terminals).toEqual(['stud', '1']);
+		expect(r.dropped).toEqual([]);
+	});
+});
+
+describe('recoding wires for another palette', () => {
+	const own = {
+		id: 'account-x',
+		name: 'Workshop codes',
+		// Green renamed, so G is found by its code; brown and red by name; no white.
+		colours: [
+			{ code: 'G', name: 'grass green', display: '#2e7d32' },
+			{ code: 'BR', name: 'brown', display: '#7b4a1e' },
+			{ code: 'R', name: 'red', display: '#d32f2f' },
+			{ code: 'B', name: 'black', display: '#1a1a1a' }
+		]
+	};
+
+	it('lists the codes the new palette cannot write, with their wires, before anything changes', () => {
+		// sample(): N (brown), R/W (red with white tracer), B (black). White is missing from "own".
+		const r = recodeFor(sample(), own);
+		expect(r.unmapped.map((u) => [u.code, u.wires.map((w) => w.id)])).toEqual([['R/W', ['w2']]]);
+		expect(() => changePalette(sample(), own)).toThrow('The palette “Workshop codes” has no colour for R/W (1 wire).');
+	});
+
+	it('rewrites by colour name, then by the same code, and copies the palette in', () => {
+		const doc = updateWire(addWire(sample(), { part: 'fuse', terminal: 'in' }, { part: 'earth', terminal: 'stud' }, { id: 'w4', code: 'G' }).doc, 'w2', { code: 'R' });
+		const after = valid(changePalette(doc, own));
+		// N brown → BR by name; R red → R; B black → B; G green has no "green" in own: same code G.
+		expect(after.wires.map((w) => w.code)).toEqual(['BR', 'R', 'B', 'G']);
+		expect(after.palette).toEqual(own);
+		expect(after.palette).not.toBe(own);
 	});
 });

@@ -2,7 +2,7 @@
 // old one untouched, unchanged parts shared), so the undo history can keep snapshots cheaply
 // and the canvas can tell changed parts by identity. Bad edits throw an EditError naming the
 // field, which the panel and the tables show beside it.
-import { PARAM_SCHEMAS, FIXED_TERMINALS, type PartKind } from '$lib/circuit/parts';
+import { DEFAULT_TERMINALS, PARAM_SCHEMAS, FIXED_TERMINALS, type PartKind } from '$lib/circuit/parts';
 import { PartSchema, type HarnessDocument, type Part, type Position, type TerminalRef, type Wire } from '$lib/circuit/schema';
 import { formatCode, parseCode, resolvePalette, type Palette } from '$lib/circuit/colours';
 import { crossSectionMm2, type WireSize } from '$lib/circuit/wires';
@@ -153,6 +153,48 @@ export function updatePart(doc: HarnessDocument, id: string, patch: PartPatch): 
 		}
 		return checked.data;
 	});
+}
+
+/**
+ * A part turned into another kind (a "load" that turns out to be a horn relay): the key number,
+ * label, place and notes stay; terminals are matched by name, so a wire on a terminal the new
+ * kind also has stays on it; values the new kind shares by name (a resistance) are kept when
+ * they fit. Returns the new document and the wires that had to go (on terminals the new kind
+ * lacks), so the board can ask before dropping them.
+ */
+export function changeKind(doc: HarnessDocument, partId: string, kind: PartKind): { doc: HarnessDocument; dropped: Wire[] } {
+	const part = doc.parts.find((p) => p.id === partId);
+	if (!part) throw new EditError(`No part with id ${partId}.`);
+	if (part.kind === kind) return { doc, dropped: [] };
+	const fixed = FIXED_TERMINALS[kind];
+	let terminals: string[];
+	if (fixed) terminals = [...fixed];
+	else {
+		// A kind whose terminals the user names keeps the old names, topped up from its defaults
+		// to two (a splice joins at least two; a switch or connector needs two to join).
+		terminals = [...part.terminals];
+		for (const t of DEFAULT_TERMINALS[kind]) if (terminals.length < 2 && !terminals.includes(t)) terminals.push(t);
+	}
+	const [a, b] = terminals;
+	const starter: Record<string, unknown> =
+		kind === 'switch'
+			? { positions: [{ name: 'off', closed: [] }, { name: 'on', closed: [[a, b]] }] }
+			: kind === 'connector'
+				? { pins: [[a, b]] }
+				: {};
+	const shape = PARAM_SCHEMAS[kind].shape as Record<string, unknown>;
+	const shared = Object.fromEntries(Object.entries(part.params as Record<string, unknown>).filter(([k]) => k in shape && !(k in starter) && k !== 'between'));
+	const withShared = PARAM_SCHEMAS[kind].safeParse({ ...starter, ...shared });
+	const params = withShared.success ? withShared.data : PARAM_SCHEMAS[kind].parse(starter);
+	const checked = PartSchema.safeParse({ id: part.id, key: part.key, label: part.label, kind, params, terminals, position: part.position, location: part.location, ...(part.notes !== undefined ? { notes: part.notes } : {}) });
+	if (!checked.success) throw new EditError(checked.error.issues[0].message, 'kind');
+	const keep = new Set(terminals);
+	const lost = (ref: TerminalRef) => ref.part === partId && !keep.has(ref.terminal);
+	const dropped = doc.wires.filter((w) => lost(w.from) || lost(w.to));
+	return {
+		doc: { ...doc, parts: doc.parts.map((p) => (p.id === partId ? checked.data : p)), wires: dropped.length ? doc.wires.filter((w) => !dropped.includes(w)) : doc.wires },
+		dropped
+	};
 }
 
 /** Ids of the wires that end on any of the parts. */
@@ -379,34 +421,51 @@ export function pasteItems(doc: HarnessDocument, clip: Clipboard, offset: Positi
 	};
 }
 
+/** A wire code the new palette cannot write, with the wires that carry it. */
+export type Unmapped = { code: string; wires: Wire[] };
+
 /**
- * Switches the document to another palette, rewriting each wire's code by colour name
- * (green with black tracer stays green with black tracer). Throws listing the wires whose
- * colours the new palette does not have.
+ * Each wire's code rewritten for another palette: by colour name first (trade G green → IEC GN
+ * green), then, where the new palette has no colour of that name, the same code if it reads it
+ * (a palette of one's own that renamed "green" to "grass green" still writes G). Lists the codes
+ * it cannot write, with their wires, so the person hears of them before anything changes.
  */
-export function changePalette(doc: HarnessDocument, palette: string | Palette): HarnessDocument {
+export function recodeFor(doc: HarnessDocument, palette: string | Palette): { wires: Wire[]; unmapped: Unmapped[] } {
 	const from = paletteOf(doc);
 	const to = resolvePalette(palette);
 	const byName = new Map(to.colours.map((c) => [c.name.toLowerCase(), c.code]));
-	const missing: string[] = [];
+	const fromName = new Map(from.colours.map((c) => [c.code.toUpperCase(), c.name.toLowerCase()]));
+	const unmapped = new Map<string, Wire[]>();
+	const colour = (code: string): string | undefined => {
+		const named = byName.get(fromName.get(code.toUpperCase()) ?? '');
+		if (named) return named;
+		const same = parseCode(code, to);
+		return same.ok && !same.code.tracer ? same.code.base : undefined;
+	};
 	const wires = doc.wires.map((w) => {
 		const parsed = parseCode(w.code, from);
-		if (!parsed.ok) {
-			missing.push(w.code);
-			return w;
-		}
-		const name = (code: string) => from.colours.find((c) => c.code.toUpperCase() === code.toUpperCase())!.name.toLowerCase();
-		const base = byName.get(name(parsed.code.base));
-		const tracer = parsed.code.tracer ? byName.get(name(parsed.code.tracer)) : null;
+		const base = parsed.ok ? colour(parsed.code.base) : undefined;
+		const tracer = parsed.ok && parsed.code.tracer ? colour(parsed.code.tracer) : null;
 		if (!base || tracer === undefined) {
-			missing.push(w.code);
+			unmapped.set(w.code, [...(unmapped.get(w.code) ?? []), w]);
 			return w;
 		}
-		return { ...w, code: formatCode({ base, tracer }) };
+		const code = formatCode({ base, tracer });
+		return code === w.code ? w : { ...w, code };
 	});
-	if (missing.length) {
-		const list = [...new Set(missing)].join(', ');
+	return { wires, unmapped: [...unmapped].map(([code, wires]) => ({ code, wires })) };
+}
+
+/**
+ * Switches the document to another palette (a built-in id, or a palette copied in whole),
+ * rewriting each wire's code as recodeFor does. Throws listing the codes it cannot write.
+ */
+export function changePalette(doc: HarnessDocument, palette: string | Palette): HarnessDocument {
+	const to = resolvePalette(palette);
+	const { wires, unmapped } = recodeFor(doc, palette);
+	if (unmapped.length) {
+		const list = unmapped.map((u) => `${u.code} (${u.wires.length} wire${u.wires.length === 1 ? '' : 's'})`).join(', ');
 		throw new EditError(`The palette “${to.name}” has no colour for ${list}. Add those colours to it, or recode those wires first.`, 'palette');
 	}
-	return { ...doc, palette, wires };
+	return { ...doc, palette: typeof palette === 'string' ? palette : structuredClone(palette), wires };
 }
