@@ -1,0 +1,313 @@
+// The printable checklist model on the invented demo harness, with the marks of the demo fault
+// hunt (fuel and temperature gauges both reading low) and a second hunt that reaches the fuel
+// tank and needs ohms (fuel gauge dead).
+import { beforeAll, describe, expect, it } from 'vitest';
+import { demoHarness } from '$lib/circuit/demo';
+import { ENTRY_DMM } from '$lib/circuit/meter-profiles';
+import { formatRange } from '$lib/circuit/outcomes';
+import { TRADE_LETTERS } from '$lib/circuit/palettes';
+import { defaultScenario } from '$lib/circuit/scenario';
+import type { PartMark } from '$lib/circuit/symptoms';
+import { CAUTIONS as PROBE_CAUTIONS } from '$lib/circuit/probes';
+import { CAUTION_TEXTS, cautionOf, mayHaveAirbags, vehicleYear } from './cautions';
+import { checklistModel, formatOhms, formatReading, slug, wireColours, type ChecklistInput, type ChecklistModel } from './checklist';
+import { regionSvg, subDocument } from './region-svg';
+import { planDiagnosis, type ReadingJson } from './session';
+
+const doc = demoHarness();
+const scenario = defaultScenario(doc);
+const gaugesLow: PartMark[] = [
+	{ part: 'fuel-gauge', mark: 'reads-low' },
+	{ part: 'temp-gauge', mark: 'reads-low' }
+];
+const fuelDead: PartMark[] = [{ part: 'fuel-gauge', mark: 'dead' }];
+const kestrel = { name: 'The Kestrel', make: 'Hartwell & Pryce', model: 'Kestrel Tourer', year: '1962' };
+
+function input(marks: PartMark[], readings: ReadingJson[] = [], vehicle = kestrel, planReadings = readings): ChecklistInput {
+	const { result } = planDiagnosis(doc, { scenario, marks, meter: 'entry-dmm' }, planReadings);
+	return {
+		vehicle,
+		diagram: { title: 'Complete harness' },
+		diagnosis: { id: '6f1c2a9e-0000-4000-8000-000000000001', title: 'Gauges read low', diagramRevision: 3, marks, status: 'open', createdAt: '2026-11-28T09:30:00.000Z', foundLabel: '', conclusion: '' },
+		document: doc,
+		result,
+		meter: ENTRY_DMM,
+		readings,
+		printedAt: new Date('2026-12-02T14:00:00Z')
+	};
+}
+
+let gauges: ChecklistInput;
+let gaugesModel: ChecklistModel;
+let dead: ChecklistModel;
+
+beforeAll(() => {
+	gauges = input(gaugesLow);
+	gaugesModel = checklistModel(gauges);
+	dead = checklistModel(input(fuelDead));
+});
+
+describe('steps', () => {
+	it('has every step of the plan once, numbered 1…n in the plan\u2019s order, each with its probe', () => {
+		const planned = gauges.result.plan.steps;
+		expect(planned.length).toBeGreaterThan(3);
+		expect(gaugesModel.steps.map((s) => s.number)).toEqual(planned.map((s) => s.step));
+		expect(gaugesModel.steps.map((s) => s.number)).toEqual(planned.map((_, i) => i + 1));
+		expect(gaugesModel.steps.map((s) => s.probe)).toEqual(planned.map((s) => s.probe));
+	});
+
+	it('sends every outcome to a step that exists, or ends it; the plan\u2019s outcome texts are kept', () => {
+		const numbers = new Set(gaugesModel.steps.map((s) => s.number));
+		for (const [i, s] of gaugesModel.steps.entries()) {
+			expect(s.outcomes.map((o) => o.text)).toEqual(gauges.result.plan.steps[i].outcomes.map((o) => o.text));
+			for (const o of s.outcomes) {
+				if (o.next !== null) {
+					expect(numbers.has(o.next)).toBe(true);
+					// The plan is a tree walked depth first: a step only sends you further down.
+					expect(o.next).toBeGreaterThan(s.number);
+					expect(o.text).toMatch(new RegExp(`go to step ${o.next}$`));
+				} else expect(o.text).not.toMatch(/go to step/);
+			}
+			expect(s.otherwise).toMatch(/No range matches/);
+		}
+		// Every step but the first is reached from exactly one outcome (a tree: one way in).
+		const reached = gaugesModel.steps.flatMap((s) => s.outcomes.map((o) => o.next)).filter((n): n is number => n !== null);
+		expect([...reached].sort((a, b) => a - b)).toEqual(gaugesModel.steps.slice(1).map((s) => s.number));
+	});
+
+	it('gives each remaining suspect\u2019s expected reading with its unit, in the plan\u2019s number style', () => {
+		for (const [i, s] of gaugesModel.steps.entries()) {
+			const planned = gauges.result.plan.steps[i];
+			expect(s.expected.map((e) => e.suspect)).toEqual(planned.expected.map((e) => e.suspect));
+			for (const [j, e] of s.expected.entries()) {
+				const r = planned.expected[j].reading;
+				expect(e.reading).toBe(formatRange({ low: r!, high: r! }, s.unit, 2));
+				expect(e.chance).toMatch(/^\d+ %$/);
+			}
+		}
+		// Positive earth (the demo vehicle): feeds read negative to earth, and no feed reads beyond
+		// the battery at rest, about 12.6 V (TRADE.md, common practice), plus the meter's ±(0.5 % + 0.02 V).
+		const first = gaugesModel.steps[0];
+		expect(first.kind).toBe('volts');
+		for (const e of first.expected) {
+			const v = Number(e.reading.replace(' V', ''));
+			expect(v).toBeLessThanOrEqual(0.02);
+			expect(v).toBeGreaterThan(-12.6 * 1.005 - 0.02);
+		}
+	});
+
+	it('says where the leads go: the red on a terminal the part has, the black on the earthed + post for volts to earth', () => {
+		const parts = new Map(doc.parts.map((p) => [p.id, p]));
+		for (const s of gaugesModel.steps) {
+			expect(parts.get(s.place.partId)!.terminals).toContain(s.place.terminal);
+			expect(s.place.text).toContain(`terminal ${s.place.terminal}`);
+			expect(s.place.text.startsWith(parts.get(s.place.partId)!.key)).toBe(true);
+			expect(s.blackLead).toMatch(/^(Black lead|Lamp clip)/);
+			if (s.kind === 'volts') expect(s.blackLead).toMatch(/earthed \+ post/);
+			// The black lead's sentence is said once, not again among the conditions.
+			expect(s.conditions).not.toContain(s.blackLead);
+			expect(s.setting).toMatch(/DC volts|Ohms|Test lamp/);
+			expect(s.conditions.join(' ')).toMatch(/Ignition and starter switch\) at "ign"|Ignition off/);
+		}
+		// Step 1 of this plan is volts at fuse 6's output (whose wires are green, two of them).
+		const first = gaugesModel.steps[0];
+		expect(first.place.key).toBe('6');
+		expect(first.wires).toEqual([{ code: 'G', words: 'green', base: { code: 'G', name: 'green', hex: '#2e7d32' }, tracer: null, count: 2 }]);
+	});
+});
+
+describe('wire colours', () => {
+	// DESIGN.md: "G/B = green with a black tracer" (the trade's base/tracer habit, common practice).
+	it.each([
+		['G/B', 'green with black tracer', 'G', 'B'],
+		['N', 'brown', 'N', null],
+		['LGB', 'light green with black tracer', 'LG', 'B'],
+		['W-R', 'white with red tracer', 'W', 'R']
+	])('%s is %s', (code, words, base, tracer) => {
+		const [w] = wireColours([code], TRADE_LETTERS);
+		expect(w.words).toBe(words);
+		expect(w.base?.code).toBe(base);
+		expect(w.tracer?.code ?? null).toBe(tracer);
+		expect(w.base?.hex).toMatch(/^#[0-9a-f]{6}$/i);
+	});
+
+	it('says when a code is not in the palette, and draws no swatch for it', () => {
+		expect(wireColours(['Q/Z'], TRADE_LETTERS)).toEqual([{ code: 'Q/Z', words: 'code Q/Z is not in the palette', base: null, tracer: null, count: 1 }]);
+	});
+});
+
+describe('cautions', () => {
+
+	it('always has battery gases and short circuits first and the general note last', () => {
+		for (const m of [gaugesModel, dead]) {
+			expect(m.cautions[0].id).toBe('battery');
+			// Hydrogen from a lead-acid battery; rings off; a spanner across the posts (common practice).
+			expect(m.cautions[0].text).toMatch(/hydrogen/);
+			expect(m.cautions[0].text).toMatch(/spark/);
+			expect(m.cautions[0].text).toMatch(/rings/);
+			expect(m.cautions[0].text).toMatch(/spanner/);
+			const last = m.cautions[m.cautions.length - 1];
+			expect(last.id).toBe('general');
+			expect(last.text).toMatch(/manual/);
+			expect(last.text).toMatch(/local codes/);
+			expect(last.text).toMatch(/qualified technician/);
+			expect(m.cautions.map((c) => c.number)).toEqual(m.cautions.map((_, i) => i + 1));
+			expect(new Set(m.cautions.map((c) => c.text)).size).toBe(m.cautions.length);
+		}
+	});
+
+	it('warns to disconnect the coil feed: powered steps on a vehicle with breaker-point ignition (TRADE.md, common practice)', () => {
+		expect(doc.parts.some((p) => p.kind === 'ignition-coil')).toBe(true);
+		const coil = gaugesModel.cautions.find((c) => c.id === 'coil')!;
+		expect(coil.text).toMatch(/disconnect the coil feed/);
+		// Every powered step points at it.
+		for (const s of gaugesModel.steps) expect(s.cautions).toContain(coil.number);
+	});
+
+	it('has no ohms, fuel-tank or airbag caution where no step needs them (1962 vehicle, volts and drops only)', () => {
+		expect(gaugesModel.steps.some((s) => s.kind === 'ohms')).toBe(false);
+		const ids = gaugesModel.cautions.map((c) => c.id);
+		expect(ids).not.toContain('ohms');
+		expect(ids).not.toContain('fuel');
+		expect(ids).not.toContain('airbag');
+	});
+
+	it('asks for the battery disconnected before ohms and warns about the tank when steps go there', () => {
+		const ohmsSteps = dead.steps.filter((s) => s.kind === 'ohms');
+		expect(ohmsSteps.length).toBeGreaterThan(0);
+		const ohms = dead.cautions.find((c) => c.id === 'ohms')!;
+		expect(ohms.text).toMatch(/battery disconnected/);
+		for (const s of ohmsSteps) expect(s.cautions).toContain(ohms.number);
+		// The fuel sender (22) sits in the tank in the demo; steps probe it.
+		expect(dead.steps.some((s) => s.place.partId === 'fuel-sender')).toBe(true);
+		const fuel = dead.cautions.find((c) => c.id === 'fuel')!;
+		expect(fuel.text).toMatch(/no sparks/);
+		expect(fuel.text).toMatch(/ventilation/);
+		for (const s of dead.steps.filter((x) => x.place.partId === 'fuel-sender')) expect(s.cautions).toContain(fuel.number);
+	});
+
+	it('covers every caution the planner gave a step, and the step refers to it by number', () => {
+		const deadInput = input(fuelDead);
+		for (const [m, inp] of [[gaugesModel, gauges], [dead, deadInput]] as const) {
+			const probes = new Map(inp.result.probes.map((p) => [p.id, p]));
+			for (const s of m.steps) {
+				for (const t of probes.get(s.probe)!.cautions) {
+					const id = cautionOf(t);
+					if (id === 'general') continue;
+					const entry = m.cautions.find((c) => (id ? c.id === id : c.text === t));
+					expect(entry, t).toBeTruthy();
+					expect(s.cautions).toContain(entry!.number);
+				}
+			}
+		}
+		expect(cautionOf(PROBE_CAUTIONS.gauge)).toBe('gauge');
+		expect(CAUTION_TEXTS.gauge.text).toBe(PROBE_CAUTIONS.gauge);
+	});
+
+	it('warns about airbags on later vehicles, and when the year is not known', () => {
+		for (const year of ['1994', '', 'c. 1988']) {
+			const m = checklistModel({ ...gauges, vehicle: { ...kestrel, year } });
+			const airbag = m.cautions.find((c) => c.id === 'airbag');
+			expect(airbag, year).toBeTruthy();
+			expect(airbag!.text).toMatch(/Do not probe airbag \(SRS\) connectors/);
+			expect(airbag!.text).toMatch(/disarming procedure/);
+		}
+		expect(vehicleYear('1990–94')).toBe(1990);
+		expect(mayHaveAirbags('1962', ['Fuel gauge'])).toBe(false);
+		expect(mayHaveAirbags('1962', ['Airbag control unit'])).toBe(true);
+		expect(mayHaveAirbags('1962', ['SRS harness plug'])).toBe(true);
+	});
+});
+
+describe('meter settings', () => {
+	it('names the profile, its 10 MΩ input and 5 W lamp (TRADE.md), and which steps use each setting', () => {
+		expect(gaugesModel.meter.label).toBe(ENTRY_DMM.label);
+		expect(gaugesModel.meter.inputResistance).toBe('10 M\u03a9');
+		expect(gaugesModel.meter.lampWatts).toBe('5 W');
+		const all = gaugesModel.meter.settings.flatMap((s) => s.steps).sort((a, b) => a - b);
+		expect(all).toEqual(gaugesModel.steps.map((s) => s.number));
+	});
+
+	it.each([
+		[10e6, '10 M\u03a9'],
+		[400e3, '400 k\u03a9'],
+		[1e6, '1 M\u03a9'],
+		[4.7, '4.7 \u03a9']
+	])('%d Ω prints as %s', (ohms, text) => expect(formatOhms(ohms)).toBe(text));
+
+	it.each([
+		// Two decimals, as the plan's ranges (plan.ts checklist, digits = 2); by hand.
+		[-12.495786, 'V', '-12.50 V'],
+		[0.004, 'V', '0.00 V'],
+		[87.4, '%', '87 %'],
+		[40e6, '\u03a9', 'OL (over range)'],
+		[null, 'V', 'no reading']
+	])('reading %s %s prints as %s', (v, unit, text) => expect(formatReading(v, unit, ENTRY_DMM.ohms.overLimit)).toBe(text));
+});
+
+describe('readings already taken', () => {
+	const firstReading = (value: number): ReadingJson => ({
+		clientId: '0b6b0a4e-1111-4222-8333-444455556666',
+		probeId: 'volts:fuse-ign:out',
+		outcome: 'value',
+		value,
+		unit: 'V',
+		note: '',
+		takenAt: '2026-11-28T09:40:00.000Z',
+		takenBy: 'Demo Restorer'
+	});
+
+	it('fills the box of a step whose probe was read (readings typed before the plan is made again)', () => {
+		const m = checklistModel(input(gaugesLow, [firstReading(-12.31)], kestrel, []));
+		expect(m.steps[0].probe).toBe('volts:fuse-ign:out');
+		expect(m.steps[0].taken).toBe('-12.31 V');
+		expect(m.steps.slice(1).every((s) => s.taken === null)).toBe(true);
+		expect(m.readings).toEqual([{ probe: 'volts:fuse-ign:out', label: m.steps[0].label, value: '-12.31 V', takenAt: '2026-11-28T09:40:00.000Z', takenBy: 'Demo Restorer', struck: false, queued: false }]);
+	});
+
+	it('after planning again the reading is listed and no step asks for it again; fewer suspects remain', () => {
+		// The reading the stabilizer's low output predicts at step 1.
+		const predicted = gauges.result.plan.steps[0].expected.find((e) => e.suspect === 'stabilizer:low:stabilizer')!.reading!;
+		const m = checklistModel(input(gaugesLow, [firstReading(predicted)]));
+		expect(m.readings).toHaveLength(1);
+		expect(m.steps.some((s) => s.probe === 'volts:fuse-ign:out')).toBe(false);
+		const left = Number(/^(\d+) suspects left/.exec(m.header.standing)?.[1] ?? 1);
+		expect(left).toBeLessThan(gauges.result.suspects.length);
+	});
+
+	it('shows a struck reading in the record but not in the box', () => {
+		const m = checklistModel(input(gaugesLow, [{ ...firstReading(-3), struck: true }], kestrel, []));
+		expect(m.steps[0].taken).toBeNull();
+		expect(m.readings[0].struck).toBe(true);
+	});
+});
+
+describe('header and region', () => {
+	it('names the vehicle, diagram revision, dates and marks', () => {
+		const h = gaugesModel.header;
+		expect(h.vehicle).toBe('The Kestrel, Hartwell & Pryce Kestrel Tourer, 1962');
+		expect(h.diagramTitle).toBe('Complete harness');
+		expect(h.revision).toBe(3);
+		expect(h.started).toBe('2026-11-28');
+		expect(h.printed).toBe('2026-12-02');
+		expect(h.marks.map((m) => `${m.key} ${m.label}: ${m.words}`)).toEqual(['20 Fuel gauge: reads low', '21 Coolant temperature gauge: reads low']);
+		expect(gaugesModel.fileName).toBe('checklist-the-kestrel-2026-11-28-6f1c2a9e.pdf');
+		expect(slug('Ålands Übertourer!')).toBe('alands-ubertourer');
+	});
+
+	it('draws the marked parts and every part a step touches, with wires whose ends are both drawn', () => {
+		const parts = new Set(gaugesModel.region.parts);
+		expect(parts.has('fuel-gauge') && parts.has('temp-gauge')).toBe(true);
+		for (const s of gaugesModel.steps) expect(parts.has(s.place.partId)).toBe(true);
+		expect(parts.size).toBeLessThan(doc.parts.length);
+		const sub = subDocument(doc, gaugesModel.region.parts, gaugesModel.region.wires);
+		for (const w of sub.wires) expect(parts.has(w.from.part) && parts.has(w.to.part)).toBe(true);
+		const svg = regionSvg(doc, gaugesModel.region, gaugesModel.steps.map((s) => ({ number: s.number, part: s.place.partId, terminal: s.place.terminal })));
+		expect(svg.match(/<g class="part"/g)!.length).toBe(sub.parts.length);
+		expect(svg.match(/<g class="wire"/g)?.length ?? 0).toBe(sub.wires.length);
+		// One tag per probed terminal; together they carry every step number once.
+		const tagged = [...svg.matchAll(/data-steps="([^"]+)"/g)].flatMap((m) => m[1].split(', ').map(Number)).sort((a, b) => a - b);
+		expect(tagged).toEqual(gaugesModel.steps.map((s) => s.number));
+		expect(svg).not.toMatch(/<script|href=/);
+	});
+});
