@@ -168,7 +168,8 @@ export function formatReading(value: number | null, unit: string, overLimit: num
 	if (value === null || !Number.isFinite(value)) return unit === '\u03a9' ? 'OL (over range)' : 'no reading';
 	if (unit === '\u03a9' && value >= overLimit) return 'OL (over range)';
 	if (unit === '%') return `${Math.round(value)} %`;
-	return formatRange({ low: value, high: value }, unit, 2);
+	// A reading that rounds to zero prints as 0.00, not -0.00.
+	return formatRange({ low: Math.abs(value) < 0.005 ? 0 : value, high: Math.abs(value) < 0.005 ? 0 : value }, unit, 2);
 }
 
 function colourOf(palette: Palette, code: string): Colour | null {
@@ -209,7 +210,7 @@ function blackLeadOf(probe: Probe, parts: Map<string, Part>, wiresById: Map<stri
 	if (to === 'chassis') return { text: 'Black lead on a clean, bare body point near the part', fromConditions: null };
 	if (to.wire) {
 		const code = wiresById.get(to.wire)?.code ?? to.wire;
-		return { text: `Black lead on wire ${code} just behind its crimp at terminal ${to.terminal} (back-probe through the insulation seal, not the wire)`, fromConditions: null };
+		return { text: `Black lead on wire ${code}, just behind its crimp at terminal ${to.terminal}`, fromConditions: null };
 	}
 	if (to.part === probe.place.part) return { text: `Black lead on terminal ${to.terminal} of the same part`, fromConditions: null };
 	return { text: `Black lead on ${partName(parts.get(to.part), to.key)}, terminal ${to.terminal}`, fromConditions: null };
