@@ -46,17 +46,19 @@ export type Reading = number;
 export interface FallbackCount {
 	/** Hypotheses whose fault changes a relay or stabilizer state: solved in full. */
 	stateFlips: number;
-	/** Hypotheses opening an element that leaves a part of the circuit hanging on the leakage. */
+	/** Hypotheses opening an element that leaves a part of the circuit hanging on the leakage, or whose incremental readings could carry more rounding than `ROUNDING_LIMIT`. */
 	illConditioned: number;
 	/** Hypotheses releasing a regulating stabilizer (stuck open or welded). */
 	stabilizerReleased: number;
 	/** Hypothesis–meter pairs where the meter itself changed a state: solved in full. */
 	meterFlips: number;
+	/** Hypothesis–meter pairs read by a full solve because even on the solved fault the rounding bound was too large. */
+	roundoff: number;
 	/** Hypotheses solved incrementally. */
 	incremental: number;
 }
 
-export const emptyFallbacks = (): FallbackCount => ({ stateFlips: 0, illConditioned: 0, stabilizerReleased: 0, meterFlips: 0, incremental: 0 });
+export const emptyFallbacks = (): FallbackCount => ({ stateFlips: 0, illConditioned: 0, stabilizerReleased: 0, meterFlips: 0, roundoff: 0, incremental: 0 });
 
 const at = (v: Float64Array, i: number) => (i < 0 ? 0 : v[i]);
 
@@ -148,6 +150,7 @@ export function fullReading(c: Circuit, changes: readonly Change[], meter: Meter
 // ---------------------------------------------------------------------------------------------
 // The incremental engine
 
+
 interface Column {
 	/** Regulated response to a unit injection into a, out of b. */
 	y: Float64Array;
@@ -174,6 +177,9 @@ export class Base {
 	readonly regulatedIndex: Map<number, number>;
 	/** Coil voltage of each relay in the base. */
 	readonly coilVolts = new Map<string, number>();
+	/** Per relay (in c.relays order): pulled in in the base; its coil below pull-in there (held in). */
+	readonly energisedAt: boolean[];
+	readonly coilBelowPullIn: boolean[];
 
 	constructor(c: Circuit, solution: Solution = solveCircuit(c)) {
 		this.c = c;
@@ -214,6 +220,8 @@ export class Base {
 		for (const st of c.stabilizers) nodes.add(st.input).add(st.output).add(st.earth);
 		nodes.delete(-1);
 		this.deviceNodes = [...nodes];
+		this.energisedAt = c.relays.map((r) => solution.energised.has(r.part));
+		this.coilBelowPullIn = c.relays.map((r) => this.coilVolts.get(r.part)! < r.pullIn);
 	}
 
 	/**
@@ -548,6 +556,8 @@ export interface Evaluated {
 	at(node: number): number;
 	/** Conductance of an element after the fault. */
 	gOf(element: number): number;
+	/** Bound on the rounding error of `at(a) − at(b)` (V), when solved incrementally. */
+	errorOf?(a: number, b: number): number;
 }
 
 const CANCELLATION = 1e-7;
@@ -649,73 +659,129 @@ function prepare(base: Base, changes: readonly Change[]): Prepared {
 	return prepared;
 }
 
+/** Unit roundoff of doubles, with a safety factor for the sums in the small system (Higham 2002, §3.1). */
+const EPS = 8 * 2 ** -53;
+
+/**
+ * How far an incremental reading may be from the exact one, by a first-order bound
+ * on the rounding: the small system's entries are differences of column values, and when those
+ * values are huge (a part of the circuit hanging on the leakage has transfer resistances near
+ * 1/gmin) the differences lose digits that no later step recovers. Perturbation bound for
+ * S α = r with |δS| ≤ ε|S|ₐ, |δr| ≤ ε|r|ₐ (|·|ₐ: the magnitudes before cancellation):
+ * |δα| ≤ |S⁻¹|(ε|r|ₐ + ε|S|ₐ|α|) (Higham 2002, "Accuracy and Stability of Numerical
+ * Algorithms", Thm 7.2), and then for a reading across nodes a, b
+ * |δ(x'ₐ − x'ᵦ)| ≤ ε(|x̂ₐ| + |x̂ᵦ| + Σ|αⱼ|(|yⱼₐ| + |yⱼᵦ|)) + Σ|δαⱼ||yⱼₐ − yⱼᵦ|.
+ * A reading whose bound exceeds these limits (in its own unit: V, brightness, Ω, A; plus a
+ * relative part) is taken from a full solve instead.
+ */
+export const ROUNDING_LIMIT = { volts: 1e-11, lamp: 1e-11, ohms: 1e-11, current: 1e-13, rel: 1e-10 } as const;
+
 /**
  * Solve the small system for a prepared fault plus an optional meter column / injection, then
  * check every relay and stabilizer still sits in the state of the base.
  */
-function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: number; delta: number; inject: number }): Evaluated {
+function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: number; delta: number; inject: number; col: Column }): Evaluated {
 	const c = base.c;
-	const cols = p.cols.slice();
-	let injectCol: Column | null = null;
-	if (meter) {
-		if (meter.delta !== 0) cols.push({ a: meter.a, b: meter.b, delta: meter.delta, element: -2, col: base.column(meter.a, meter.b) });
-		if (meter.inject !== 0) injectCol = base.column(meter.a, meter.b);
+	const nf = p.cols.length;
+	const withMeter = !!meter && meter.delta !== 0;
+	const m = nf + (withMeter ? 1 : 0);
+	const ca = new Int32Array(m);
+	const cb = new Int32Array(m);
+	const cd = new Float64Array(m);
+	const cy: Float64Array[] = new Array(m);
+	const cc: Float64Array[] = new Array(m);
+	for (let j = 0; j < nf; j++) {
+		const col = p.cols[j];
+		ca[j] = col.a;
+		cb[j] = col.b;
+		cd[j] = col.delta;
+		cy[j] = col.col.y;
+		cc[j] = col.col.c;
+	}
+	if (withMeter) {
+		ca[nf] = meter!.a;
+		cb[nf] = meter!.b;
+		cd[nf] = meter!.delta;
+		cy[nf] = meter!.col.y;
+		cc[nf] = meter!.col.c;
 	}
 	const x = base.x;
 	const shift = p.shift;
 	const inject = meter?.inject ?? 0;
-	const hat = (i: number) => (i < 0 ? 0 : x[i] + (shift ? shift[i] : 0) + (injectCol ? inject * injectCol.y[i] : 0));
-	const m = cols.length;
-	// The Woodbury system for a right-hand side given by its values at the nodes: returns the
-	// multipliers, so that the updated vector is v̂ + Σ αⱼ ỹⱼ.
-	const updated = (vhat: (i: number) => number): ((i: number) => number) | null => {
-		if (!m) return vhat;
-		const mat = cols.map((ci) => {
-			const row = new Float64Array(m);
-			cols.forEach((cj, j) => (row[j] = at(cj.col.y, ci.a) - at(cj.col.y, ci.b)));
-			return row;
-		});
-		const rhs = new Float64Array(m);
-		cols.forEach((ci, i) => {
-			mat[i][i] += 1 / ci.delta;
-			rhs[i] = -(vhat(ci.a) - vhat(ci.b));
-		});
-		const al = solveSmall(mat, rhs);
-		if (!al) return null;
-		return (i: number) => {
-			if (i < 0) return 0;
-			let v = vhat(i);
-			for (let j = 0; j < m; j++) v += al[j] * cols[j].col.y[i];
-			return v;
-		};
-	};
-	let alpha: Float64Array = new Float64Array(0);
+	const injectY = inject !== 0 ? meter!.col.y : null;
+	const hat = (i: number) => (i < 0 ? 0 : x[i] + (shift ? shift[i] : 0) + (injectY ? inject * injectY[i] : 0));
+	const alpha = new Float64Array(m);
+	const eAlpha = new Float64Array(m);
 	if (m) {
-		const mat = cols.map((ci) => {
-			const row = new Float64Array(m);
-			cols.forEach((cj, j) => (row[j] = at(cj.col.y, ci.a) - at(cj.col.y, ci.b)));
-			return row;
-		});
+		const mat: Float64Array[] = new Array(m);
 		const rhs = new Float64Array(m);
-		cols.forEach((ci, i) => {
-			mat[i][i] += 1 / ci.delta;
-			rhs[i] = -(hat(ci.a) - hat(ci.b));
-		});
-		const sol = solveSmall(mat, rhs);
-		if (!sol) return failed('illConditioned');
-		alpha = sol;
+		for (let i = 0; i < m; i++) {
+			const row = new Float64Array(m);
+			const a = ca[i];
+			const b = cb[i];
+			for (let j = 0; j < m; j++) row[j] = at(cy[j], a) - at(cy[j], b);
+			row[i] += 1 / cd[i];
+			mat[i] = row;
+			rhs[i] = -(hat(a) - hat(b));
+		}
+		const inv = invertOrNull(mat);
+		if (!inv) return failed('illConditioned');
+		for (let i = 0; i < m; i++) {
+			let s = 0;
+			for (let k = 0; k < m; k++) s += inv[i][k] * rhs[k];
+			alpha[i] = s;
+		}
+		// One step of refinement against the assembled system (cheap at this size).
+		const res = new Float64Array(m);
+		for (let i = 0; i < m; i++) {
+			let s = rhs[i];
+			for (let j = 0; j < m; j++) s -= mat[i][j] * alpha[j];
+			res[i] = s;
+		}
+		for (let i = 0; i < m; i++) {
+			let s = 0;
+			for (let k = 0; k < m; k++) s += inv[i][k] * res[k];
+			alpha[i] += s;
+		}
+		// Rounding bound on α (see ROUNDING_LIMIT).
+		const load = new Float64Array(m);
+		for (let k = 0; k < m; k++) {
+			const a = ca[k];
+			const b = cb[k];
+			let s = Math.abs(hat(a)) + Math.abs(hat(b)) + Math.abs(alpha[k] / cd[k]);
+			for (let j = 0; j < m; j++) s += (Math.abs(at(cy[j], a)) + Math.abs(at(cy[j], b))) * Math.abs(alpha[j]);
+			load[k] = s;
+		}
+		for (let j = 0; j < m; j++) {
+			let s = 0;
+			for (let k = 0; k < m; k++) s += Math.abs(inv[j][k]) * load[k];
+			eAlpha[j] = EPS * s;
+		}
 	}
 	const value = (i: number) => {
 		if (i < 0) return 0;
 		let v = hat(i);
-		for (let j = 0; j < m; j++) v += alpha[j] * cols[j].col.y[i];
+		for (let j = 0; j < m; j++) v += alpha[j] * cy[j][i];
 		return v;
+	};
+	const errorOf = (a: number, b: number) => {
+		let e = Math.abs(hat(a)) + Math.abs(hat(b));
+		let d = 0;
+		for (let j = 0; j < m; j++) {
+			const ya = at(cy[j], a);
+			const yb = at(cy[j], b);
+			e += Math.abs(alpha[j]) * (Math.abs(ya) + Math.abs(yb));
+			d += eAlpha[j] * Math.abs(ya - yb);
+		}
+		return EPS * e + d;
 	};
 	const gOf = (k: number) => p.gNew.get(k) ?? base.g[k];
 	// Relays keep their state?
-	for (const r of c.relays) {
+	const relays = c.relays;
+	for (let ri = 0; ri < relays.length; ri++) {
+		const r = relays[ri];
 		const coil = c.elements[r.coil];
-		const on = base.solution.energised.has(r.part);
+		const on = base.energisedAt[ri];
 		let next: boolean | null;
 		if (coil.gClosed > 0 && gOf(r.coil) === 0) next = c.elements[r.normallyOpen].g > 0; // disconnected: stays as built
 		else {
@@ -724,7 +790,7 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 			else {
 				// Held in: fine above pull-in, or above drop-out when the base itself sits below pull-in
 				// (it pulled in on its way to settling); between the two the full solve decides.
-				const held = base.coilVolts.get(r.part)! < r.pullIn;
+				const held = base.coilBelowPullIn[ri];
 				next = v >= r.pullIn || (held && v >= r.dropOut) ? true : v < r.dropOut ? false : null;
 			}
 		}
@@ -748,7 +814,7 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 			// The solver's own Sherman–Morrison step (solve.ts): its sign says which way the
 			// contacts would move; at gMax they must not open, at the floor they must not close.
 			const colS = base.column(st.input, st.output);
-			const z = updated((q) => (q < 0 ? 0 : colS.y[q]));
+			const z = updatedColumn(colS.y, m, ca, cb, cd, cy);
 			if (!z) return failed('stateFlip');
 			const a = value(st.input) - value(st.output);
 			const b = z(st.input) - z(st.output);
@@ -762,15 +828,46 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 		}
 		const target = p.targets.get(r) ?? st.setPoint;
 		// Injection along in→out that the contacts now pass beyond the base, and the conductance that means.
-		let iota = -(p.shiftC ? p.shiftC[r] : 0) - (injectCol ? inject * injectCol.c[r] : 0);
-		for (let j = 0; j < m; j++) iota -= alpha[j] * cols[j].col.c[r];
+		let iota = -(p.shiftC ? p.shiftC[r] : 0) - (injectY ? inject * meter!.col.c[r] : 0);
+		for (let j = 0; j < m; j++) iota -= alpha[j] * cc[j][r];
 		const across = value(st.input) - value(st.output);
 		if (across === 0) return failed('stateFlip');
 		// The contacts pass g·Δv − ι, so their conductance is now g − ι/Δv.
 		const gNext = base.g[st.element] - iota / across;
 		if (!(heater > target) || !(gNext > c.gmin) || !(gNext < st.gMax)) return failed('stateFlip');
 	}
-	return { ok: true, at: value, gOf };
+	return { ok: true, at: value, gOf, errorOf };
+}
+
+/** The response to a column under the Woodbury system of the given changes (for the stabilizer step). */
+function updatedColumn(v: Float64Array, m: number, ca: Int32Array, cb: Int32Array, cd: Float64Array, cy: Float64Array[]): ((i: number) => number) | null {
+	if (!m) return (i) => (i < 0 ? 0 : v[i]);
+	const mat: Float64Array[] = new Array(m);
+	const rhs = new Float64Array(m);
+	for (let i = 0; i < m; i++) {
+		const row = new Float64Array(m);
+		for (let j = 0; j < m; j++) row[j] = at(cy[j], ca[i]) - at(cy[j], cb[i]);
+		row[i] += 1 / cd[i];
+		mat[i] = row;
+		rhs[i] = -(at(v, ca[i]) - at(v, cb[i]));
+	}
+	const al = solveSmall(mat, rhs);
+	if (!al) return null;
+	return (i: number) => {
+		if (i < 0) return 0;
+		let x = v[i];
+		for (let j = 0; j < m; j++) x += al[j] * cy[j][i];
+		return x;
+	};
+}
+
+/** Inverse of a small matrix, or null when it is singular. */
+function invertOrNull(m: Float64Array[]): Float64Array[] | null {
+	try {
+		return invert(m);
+	} catch {
+		return null;
+	}
 }
 
 function failed(reason: Evaluated['reason']): Evaluated {
@@ -799,10 +896,67 @@ function readEvaluated(c: Circuit, ev: Evaluated, meter: Meter): Reading {
 	return readingFrom(meter, ev.at(probeNode(c, meter.a)), ev.at(probeNode(c, meter.b)), 0);
 }
 
+type MeterOn = { a: number; b: number; delta: number; inject: number; col: Column };
+
+/** The meters' columns on a base (one solve each, kept by the base). */
+function metersOn(b: Base, meters: readonly Meter[]): (MeterOn | undefined)[] {
+	return meters.map((m) => {
+		const mc = meterColumn(b.c, m);
+		return mc && { ...mc, col: b.column(mc.a, mc.b) };
+	});
+}
+
+/** Is the reading, taken incrementally, within the rounding limit? */
+function exactEnough(ev: Evaluated, meter: Meter, a: number, b: number, g: number): boolean {
+	if (!ev.errorOf) return true;
+	const v = ev.at(a) - ev.at(b);
+	const e = ev.errorOf(a, b);
+	const r = readingFrom(meter, ev.at(a), ev.at(b), g);
+	let err: number;
+	switch (meter.kind) {
+		case 'volts':
+			err = e;
+			break;
+		case 'lamp':
+			err = ((2 * Math.abs(v) + e) * e) / meter.ohms / meter.watts;
+			break;
+		case 'ohms':
+			err = e / meter.testCurrent;
+			break;
+		case 'current':
+			err = g * e;
+			break;
+	}
+	return err <= ROUNDING_LIMIT[meter.kind] + ROUNDING_LIMIT.rel * Math.abs(r);
+}
+
+/**
+ * One meter under one prepared hypothesis on a base: the reading, 'flip' when the meter moves a
+ * relay or stabilizer (the caller solves in full), 'inexact' when rounding could exceed the limit.
+ */
+function readOn(b: Base, p: Prepared, changes: readonly Change[], meter: Meter, mc: MeterOn | undefined, bare: () => Evaluated): Reading | 'flip' | 'inexact' {
+	if (meter.kind === 'current') {
+		const ev = bare();
+		if (!ev.ok) return 'flip';
+		const e = b.c.elements[meter.element];
+		if (!exactEnough(ev, meter, e.a, e.b, ev.gOf(meter.element))) return 'inexact';
+		return readEvaluated(b.c, ev, meter);
+	}
+	const ev = evaluatePrepared(b, p, mc);
+	if (!ev.ok) return 'flip';
+	// A test lamp loads the circuit: it too must leave the solver's settling path as it was.
+	if (meter.kind === 'lamp' && mc && !b.sameSettledState(changes, mc)) return 'flip';
+	if (!exactEnough(ev, meter, mc!.a, mc!.b, 0)) return 'inexact';
+	return readEvaluated(b.c, ev, meter);
+}
+
 /**
  * Readings of every meter under every hypothesis on one setup: `readings[m][h]`.
  * Each hypothesis is prepared once (its columns solved once against the base's factorisation)
- * and each meter adds one column to a system of a few unknowns.
+ * and each meter adds one column (solved once per base) to a system of a few unknowns.
+ * A hypothesis that moves a relay or stabilizer, or whose incremental readings could carry more
+ * rounding than `ROUNDING_LIMIT`, is solved in full once and its meters are added to that
+ * solution incrementally; a meter that itself moves a state is read by a full solve.
  */
 export function predictReadings(
 	base: Base,
@@ -812,35 +966,56 @@ export function predictReadings(
 ): Float64Array[] {
 	const c = base.c;
 	const out = meters.map(() => new Float64Array(hypotheses.length));
-	const meterCols = meters.map((m) => meterColumn(c, m));
+	const onBase = metersOn(base, meters);
+	const got = new Float64Array(meters.length);
+	const flipped: number[] = [];
 	hypotheses.forEach((h, hi) => {
 		const p = prepare(base, h.changes);
-		let local: Base | null = null;
-		let localPrepared: Prepared | null = null;
 		let full = false;
 		if (p.fallback) {
 			fallbacks[p.fallback]++;
 			full = true;
-		} else if (!evaluatePrepared(base, p).ok || !base.sameSettledState(h.changes)) {
-			fallbacks.stateFlips++;
-			full = true;
-		} else fallbacks.incremental++;
-		if (full) {
-			// Full solve of the faulted circuit; meters are then added to it incrementally.
-			const faulted = faultedCircuit(c, h.changes);
-			local = new Base(faulted);
-			localPrepared = prepare(local, []);
+		} else {
+			let bareEv: Evaluated | null = null;
+			const bare = () => (bareEv ??= evaluatePrepared(base, p));
+			if (!bare().ok || !base.sameSettledState(h.changes)) {
+				fallbacks.stateFlips++;
+				full = true;
+			} else {
+				flipped.length = 0;
+				let inexact = false;
+				for (let mi = 0; mi < meters.length && !inexact; mi++) {
+					const r = readOn(base, p, h.changes, meters[mi], onBase[mi], bare);
+					if (r === 'inexact') inexact = true;
+					else if (r === 'flip') flipped.push(mi);
+					else got[mi] = r;
+				}
+				if (!inexact) {
+					fallbacks.incremental++;
+					for (let mi = 0; mi < meters.length; mi++) out[mi][hi] = got[mi];
+					for (const mi of flipped) {
+						fallbacks.meterFlips++;
+						out[mi][hi] = fullReading(c, h.changes, meters[mi]);
+					}
+					return;
+				}
+				fallbacks.illConditioned++;
+				full = true;
+			}
 		}
+		if (!full) return;
+		// Full solve of the faulted circuit; meters are then added to it incrementally.
+		const local = new Base(faultedCircuit(c, h.changes));
+		const lp = prepare(local, []);
+		const onLocal = metersOn(local, meters);
+		let bareEv: Evaluated | null = null;
+		const bare = () => (bareEv ??= evaluatePrepared(local, lp));
 		meters.forEach((meter, mi) => {
-			const b = local ?? base;
-			const pp = localPrepared ?? p;
-			const mc = meterCols[mi];
-			let ev = evaluatePrepared(b, pp, mc);
-			// A test lamp loads the circuit: it too must leave the solver's first round as it was.
-			if (ev.ok && meter.kind === 'lamp' && mc && !b.sameSettledState(local ? [] : h.changes, mc)) ev = failed('stateFlip');
-			if (ev.ok) out[mi][hi] = readEvaluated(b.c, ev, meter);
+			const r = readOn(local, lp, [], meter, onLocal[mi], bare);
+			if (typeof r === 'number') out[mi][hi] = r;
 			else {
-				fallbacks.meterFlips++;
+				if (r === 'flip') fallbacks.meterFlips++;
+				else fallbacks.roundoff++;
 				out[mi][hi] = fullReading(c, h.changes, meter);
 			}
 		});

@@ -149,6 +149,78 @@ export function factorCircuit(c: Circuit, g: Float64Array = Float64Array.from(c.
 
 const volt = (v: Float64Array, i: number) => (i < 0 ? 0 : v[i]);
 
+/** a + b as a double and its rounding error (Knuth's TwoSum). */
+function twoSum(a: number, b: number, out: Float64Array): void {
+	const s = a + b;
+	const bb = s - a;
+	out[0] = s;
+	out[1] = a - (s - bb) + (b - bb);
+}
+
+/** a · b as a double and its rounding error (Dekker's TwoProduct with Veltkamp splitting). */
+function twoProd(a: number, b: number, out: Float64Array): void {
+	const p = a * b;
+	const A = 134217729 * a;
+	const ah = A - (A - a);
+	const al = a - ah;
+	const B = 134217729 * b;
+	const bh = B - (B - b);
+	const bl = b - bh;
+	out[0] = p;
+	out[1] = ah * bh - p + ah * bl + al * bh + al * bl;
+}
+
+/**
+ * Voltages by iterative refinement with the residual in double-double arithmetic
+ * (Higham 2002, §12.1, mixed-precision refinement; Dekker 1971, Knuth TAOCP 2 §4.2.2 for the
+ * error-free sums and products). A part of the circuit that hangs on the leakage alone, yet sits
+ * at a feed's potential, is read as the small difference of two nearly equal voltages; the plain
+ * LDLᵀ solve leaves an absolute error near 1e-9 V there, and a current read there (or a fault
+ * update computed from these voltages) inherits it. Two refinement steps bring it to the
+ * rounding of the voltages themselves.
+ */
+export function refineVoltages(c: Circuit, g: ArrayLike<number>, factor: Factorization, v: Float64Array): Float64Array {
+	// A pivot raised to the floor means the factors are not of this matrix: nothing to refine against.
+	if (factor.raisedPivots > 0) return v;
+	const n = c.nodeNames.length;
+	const x = Float64Array.from(v);
+	const j = sourceVector(c, g);
+	const hi = new Float64Array(n);
+	const lo = new Float64Array(n);
+	const t = new Float64Array(2);
+	const add = (i: number, v: number, e: number) => {
+		twoSum(hi[i], v, t);
+		hi[i] = t[0];
+		lo[i] += t[1] + e;
+	};
+	for (let step = 0; step < 2; step++) {
+		hi.set(j);
+		lo.fill(0);
+		for (let i = 0; i < n; i++) {
+			twoProd(c.gmin, x[i], t);
+			add(i, -t[0], -t[1]);
+		}
+		for (let k = 0; k < c.elements.length; k++) {
+			const gk = g[k];
+			if (gk === 0) continue;
+			const e = c.elements[k];
+			twoSum(volt(x, e.a), -volt(x, e.b), t);
+			const d = t[0];
+			const de = t[1];
+			twoProd(gk, d, t);
+			const flow = t[0];
+			const fe = t[1] + gk * de;
+			if (e.a >= 0) add(e.a, -flow, -fe);
+			if (e.b >= 0) add(e.b, flow, fe);
+		}
+		const r = new Float64Array(n);
+		for (let i = 0; i < n; i++) r[i] = hi[i] + lo[i];
+		const d = factor.solve(r);
+		for (let i = 0; i < n; i++) x[i] += d[i];
+	}
+	return x;
+}
+
 /** Solve a built circuit, settling relays and stabilizers. */
 export function solveCircuit(c: Circuit, options: SolveOptions = {}): Solution {
 	const maxIterations = options.maxIterations ?? 40;
@@ -167,7 +239,7 @@ export function solveCircuit(c: Circuit, options: SolveOptions = {}): Solution {
 	while (iterations < maxIterations) {
 		iterations++;
 		factor = factorize(stamp.sym, assemble(c, stamp, g), c.gmin);
-		v = factor.solve(sourceVector(c, g));
+		v = refineVoltages(c, g, factor, factor.solve(sourceVector(c, g)));
 		unsettled = [];
 		for (const r of c.relays) {
 			const el = c.elements[r.coil];
@@ -224,7 +296,7 @@ export function solveCircuit(c: Circuit, options: SolveOptions = {}): Solution {
 			`did not settle after ${maxIterations} rounds: ${keys.join(', ')} kept changing (a relay that drops out as soon as it pulls in chatters)`
 		);
 		factor = factorize(stamp.sym, assemble(c, stamp, g), c.gmin);
-		v = factor.solve(sourceVector(c, g));
+		v = refineVoltages(c, g, factor, factor.solve(sourceVector(c, g)));
 	}
 	const currents = new Float64Array(c.elements.length);
 	const power = new Map<string, number>();
