@@ -5,9 +5,14 @@
 import { and, eq } from 'drizzle-orm';
 import * as accounts from '../src/lib/server/auth/accounts';
 import { db } from '../src/lib/server/db';
-import { diagrams, vehicles, type User } from '../src/lib/server/db/schema';
+import { diagnoses, diagrams, vehicles, type Diagram, type User } from '../src/lib/server/db/schema';
+import * as diagnosisStore from '../src/lib/server/diagnoses';
 import * as diagramStore from '../src/lib/server/garage/diagrams';
 import { demoHarness } from '../src/lib/circuit/demo';
+import { defaultScenario } from '../src/lib/circuit/scenario';
+import { readingsIf } from '../src/lib/circuit/what-if';
+import { OPEN_HUNT, PAST_HUNTS, type DemoHunt } from '../src/lib/diagnosis/demo';
+import type { User as SessionUser } from 'lucia';
 
 export const DEMO = { email: 'demo@loomwright.test', password: 'tracer-stripe-demo', displayName: 'Demo Restorer' };
 export const ADMIN = { email: 'admin@loomwright.test', password: 'earth-strap-admin', displayName: 'Site admin' };
@@ -18,6 +23,38 @@ async function account(input: accounts.NewAccount): Promise<User> {
 	const created = await accounts.createAccount(input);
 	if (!created.ok) throw new Error(`seed: could not create ${input.email}: ${created.message}`);
 	return created.user;
+}
+
+/**
+ * A demo diagnosis. A past one is walked to its end as a person would: each planned probe read
+ * as the planted fault makes it read, then concluded, with dates moved into the past.
+ */
+async function seedHunt(user: User, diagram: Diagram, hunt: DemoHunt) {
+	const [found] = await db.select({ id: diagnoses.id }).from(diagnoses).where(and(eq(diagnoses.diagramId, diagram.id), eq(diagnoses.title, hunt.title)));
+	if (found) return;
+	const doc = demoHarness();
+	const base = defaultScenario(doc);
+	const scenario = { ...base, switches: { ...base.switches, ...(hunt.switches ?? {}) } };
+	const who = { id: user.id } as SessionUser;
+	const { diagnosis } = await diagnosisStore.start(who, diagram, { revision: diagram.revision, title: hunt.title, marks: hunt.marks, scenario, meter: 'entry-dmm' });
+	if (!hunt.concluded) return;
+	const started = new Date(Date.now() - hunt.concluded.daysAgo * 86_400_000);
+	const [row] = await db.select().from(diagnoses).where(eq(diagnoses.id, diagnosis.id));
+	for (let step = 0; step < 12; step++) {
+		const loaded = await diagnosisStore.load(row);
+		const next = diagnosisStore.planOf(loaded).result.plan.steps[0];
+		if (!next) break;
+		const [reading] = readingsIf({ doc, scenario, probes: [next.probe], fault: hunt.plantedFault });
+		const takenAt = new Date(started.getTime() + (step + 1) * 6 * 60_000).toISOString();
+		await diagnosisStore.addReadings(who, loaded, [{ clientId: crypto.randomUUID(), probe: next.probe, outcome: 'value', value: Math.round(reading.reading * 100) / 100, unit: reading.unit, note: '', takenAt }]);
+	}
+	const done = await diagnosisStore.conclude(await diagnosisStore.load((await db.select().from(diagnoses).where(eq(diagnoses.id, diagnosis.id)))[0]), {
+		version: row.version,
+		foundSuspect: hunt.plantedFault,
+		conclusion: hunt.concluded.conclusion,
+		partsReplaced: hunt.concluded.partsReplaced
+	});
+	await db.update(diagnoses).set({ createdAt: started, updatedAt: started, concludedAt: new Date(started.getTime() + 3 * 3_600_000) }).where(eq(diagnoses.id, done.id));
 }
 
 async function main() {
@@ -41,7 +78,7 @@ async function main() {
 				systemVoltage: 12,
 				earthPolarity: 'positive',
 				notes:
-					'Invented demo vehicle. Dynamo charging with a two-bobbin regulator; fuel and temperature gauges fed through a voltage stabilizer behind the speedometer.\nFuel gauge has read high since the tank was refitted: suspect the sender earth.'
+					'Invented demo vehicle. Dynamo charging with a two-bobbin regulator; fuel and temperature gauges fed through a voltage stabilizer behind the speedometer.\nSince the winter lay-up the fuel and temperature gauges both read low; the stabilizer is the obvious suspect.'
 			})
 			.returning()
 	)[0];
@@ -51,7 +88,8 @@ async function main() {
 		.select({ id: diagrams.id })
 		.from(diagrams)
 		.where(and(eq(diagrams.vehicleId, kestrel.id), eq(diagrams.title, title)));
-	if (!existing) await diagramStore.create(kestrel, demo.id, title, demoHarness());
+	const diagram = existing ? (await db.select().from(diagrams).where(eq(diagrams.id, existing.id)))[0] : await diagramStore.create(kestrel, demo.id, title, demoHarness());
+	for (const hunt of [...PAST_HUNTS, OPEN_HUNT]) await seedHunt(demo, diagram, hunt);
 
 	console.log('[seed] demo account  %s / %s', DEMO.email, DEMO.password);
 	console.log('[seed] site admin    %s / %s', ADMIN.email, ADMIN.password);

@@ -1,11 +1,11 @@
 // A stored diagnosis as the planner sees it: the marks, scenario and meter it was started with,
 // and the readings taken so far (the latest of each probe counts; struck ones do not). Runs the
 // same in the server (API, checklist, PDF) and in the browser (the diagnosis page, offline too).
-import { diagnose, type DiagnoseResult } from '$lib/circuit/diagnose';
-import { ENTRY_DMM, METER_PROFILES, MeterProfileSchema, type MeterProfile } from '$lib/circuit/meter-profiles';
-import type { Scenario } from '$lib/circuit/scenario';
-import type { HarnessDocument } from '$lib/circuit/schema';
-import type { PartMark } from '$lib/circuit/symptoms';
+import { diagnose, type DiagnoseResult } from '../circuit/diagnose';
+import { ENTRY_DMM, METER_PROFILES, MeterProfileSchema, type MeterProfile } from '../circuit/meter-profiles';
+import type { Scenario } from '../circuit/scenario';
+import type { HarnessDocument } from '../circuit/schema';
+import type { PartMark } from '../circuit/symptoms';
 
 export type ReadingOutcome = 'value' | 'over-range' | 'unreachable';
 

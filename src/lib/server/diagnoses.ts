@@ -5,12 +5,12 @@
 import { and, asc, desc, eq, sql } from 'drizzle-orm';
 import type { User as SessionUser } from 'lucia';
 import { z } from 'zod';
-import { DiagnoseError } from '$lib/circuit/diagnose';
-import { METER_PROFILES, MeterProfileSchema } from '$lib/circuit/meter-profiles';
-import { checkScenario, defaultScenario } from '$lib/circuit/scenario';
-import type { HarnessDocument } from '$lib/circuit/schema';
-import { MARKS } from '$lib/circuit/symptoms';
-import { planDiagnosis, type DiagnosisJson, type DiagnosisPlan, type ReadingJson } from '$lib/diagnosis/session';
+import { DiagnoseError } from '../circuit/diagnose';
+import { METER_PROFILES, MeterProfileSchema } from '../circuit/meter-profiles';
+import { checkScenario, defaultScenario } from '../circuit/scenario';
+import type { HarnessDocument } from '../circuit/schema';
+import { MARKS } from '../circuit/symptoms';
+import { planDiagnosis, type DiagnosisJson, type DiagnosisPlan, type ReadingJson } from '../diagnosis/session';
 import { db } from './db';
 import { diagnoses, diagnosisReadings, diagramRevisions, users, type Diagnosis, type DiagnosisReading, type Diagram } from './db/schema';
 import { validateDocument } from './documents';

@@ -1,6 +1,7 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { requireVehicle } from '$lib/server/access';
 import { diagramTitle, formObject, vehicleFields } from '$lib/server/forms';
+import * as diagnoses from '$lib/server/diagnoses';
 import * as diagrams from '$lib/server/garage/diagrams';
 import * as vehicles from '$lib/server/garage/vehicles';
 import { fieldErrors, fromZod } from '$lib/server/issues';
@@ -8,7 +9,8 @@ import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals, params }) => {
 	const vehicle = await requireVehicle(locals, params.vehicleId, 'view');
-	return { vehicle: vehicles.toJson(vehicle), diagrams: await diagrams.listFor(locals.user!, vehicle.id) };
+	const [list, timeline] = await Promise.all([diagrams.listFor(locals.user!, vehicle.id), diagnoses.timeline(vehicle.id)]);
+	return { vehicle: vehicles.toJson(vehicle), diagrams: list, timeline };
 };
 
 export const actions: Actions = {

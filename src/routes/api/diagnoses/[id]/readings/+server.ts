@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { requireDiagnosis } from '$lib/server/access';
 import * as diagnosisStore from '$lib/server/diagnoses';
-import { planJson } from '$lib/server/diagnosis-json';
+import { planView } from '$lib/diagnosis/view';
 import { endpoint, readBody } from '$lib/server/http';
 import type { RequestHandler } from './$types';
 
@@ -22,5 +22,5 @@ export const POST: RequestHandler = endpoint(async ({ locals, params, request })
 	const loaded = await diagnosisStore.load(diagnosis);
 	const counts = await diagnosisStore.addReadings(locals.user!, loaded, input.readings);
 	const readings = await diagnosisStore.readingsOf(diagnosis.id);
-	return json({ ...counts, readings, plan: planJson(diagnosisStore.planOf({ ...loaded, readings })) });
+	return json({ ...counts, readings, plan: planView(diagnosisStore.planOf({ ...loaded, readings })) });
 });

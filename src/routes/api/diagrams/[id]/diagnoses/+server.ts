@@ -4,7 +4,7 @@ import { requireDiagram } from '$lib/server/access';
 import { db } from '$lib/server/db';
 import { diagnoses } from '$lib/server/db/schema';
 import * as diagnosisStore from '$lib/server/diagnoses';
-import { planJson } from '$lib/server/diagnosis-json';
+import { planView } from '$lib/diagnosis/view';
 import { endpoint, readBody } from '$lib/server/http';
 import type { RequestHandler } from './$types';
 
@@ -23,5 +23,5 @@ export const POST: RequestHandler = endpoint(async ({ locals, params, request })
 	const { diagram } = await requireDiagram({ ...locals, linkToken: null }, params.id, 'edit');
 	const input = await readBody(request, diagnosisStore.StartSchema);
 	const { diagnosis, plan } = await diagnosisStore.start(locals.user!, diagram, input);
-	return json({ diagnosis, plan: planJson(plan) }, { status: 201 });
+	return json({ diagnosis, plan: planView(plan) }, { status: 201 });
 });

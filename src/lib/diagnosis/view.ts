@@ -1,0 +1,16 @@
+// What the pages and the API show of a plan: the planner's result without its internal table.
+import type { DiagnosisPlan } from './session';
+
+export function planView({ result }: DiagnosisPlan) {
+	return {
+		explainedBy: result.explainedBy,
+		suspects: result.suspects,
+		probes: result.probes,
+		minimalSet: result.minimalSet,
+		ambiguityGroups: result.ambiguityGroups,
+		plan: result.plan,
+		...(result.readings ? { readings: result.readings } : {}),
+		notes: result.notes
+	};
+}
+export type PlanView = ReturnType<typeof planView>;
