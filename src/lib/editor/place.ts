@@ -1,6 +1,23 @@
 // Where a new part goes: the spot nearest the middle of the view where its box overlaps no
 // other part, searched on rings of a grid one box (plus a gap) apart.
+import { PART_KINDS, type PartKind } from '$lib/circuit/parts';
 import type { Position } from '$lib/circuit/schema';
+
+/** The drag-and-drop data type a part kind travels under from the tray to the canvas. */
+export const PART_DRAG_TYPE = 'application/x-loomwright-part-kind';
+
+/** The kind a drop carries, or null when it is not a part from the tray. */
+export function droppedKind(data: string | undefined | null): PartKind | null {
+	return data && (PART_KINDS as readonly string[]).includes(data) ? (data as PartKind) : null;
+}
+
+/**
+ * The top-left corner that puts a box's middle on the drop point, in whole drawing units.
+ * @example centredAt({ x: 100, y: 50 }, { width: 120, height: 60 }) // { x: 40, y: 20 }
+ */
+export function centredAt(point: Position, size: { width: number; height: number }): Position {
+	return { x: Math.round(point.x - size.width / 2), y: Math.round(point.y - size.height / 2) };
+}
 
 export type Box = { x: number; y: number; width: number; height: number };
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { orthogonalRoute, simplify, type Point, type Side } from './route';
+import { bendHandles, bendSegment, orthogonalRoute, simplify, type Point, type Side } from './route';
 
 // Checks are against the definition of an orthogonal route (every segment horizontal or
 // vertical, IEC 61082-1 layout practice, common practice) and against routes worked by hand.
@@ -122,5 +122,77 @@ describe('simplify', () => {
 			{ x: 10, y: 5 },
 			{ x: 10, y: 0 }
 		]);
+	});
+});
+
+describe('bendSegment', () => {
+	const z = orthogonalRoute({ source: { x: 0, y: 0 }, sourceSide: 'right', target: { x: 100, y: 40 }, targetSide: 'left' });
+	const reroute = (waypoints: Point[], source = { x: 0, y: 0 }, target = { x: 100, y: 40 }) =>
+		orthogonalRoute({ source, sourceSide: 'right', target, targetSide: 'left', waypoints }).points;
+
+	it('moves the middle run of a Z route sideways only (worked by hand)', () => {
+		// The vertical run at x = 50 dragged by (+30, +5): it moves to x = 80; the 5 along it is ignored.
+		const w = bendSegment({ points: z.points, index: 1, delta: { x: 30, y: 5 }, sourceSide: 'right', targetSide: 'left' });
+		expect(w).toEqual([
+			{ x: 80, y: 0 },
+			{ x: 80, y: 40 }
+		]);
+		expect(reroute(w)).toEqual([
+			{ x: 0, y: 0 },
+			{ x: 80, y: 0 },
+			{ x: 80, y: 40 },
+			{ x: 100, y: 40 }
+		]);
+	});
+
+	it('keeps a square stub out of the terminal when the run on a terminal is dragged', () => {
+		// First run (0,0)–(50,0) dragged down 24: out 16 to (16,0), down to (16,24), across to (50,24),
+		// down to the old bend height 40 … on to the target as before.
+		const w = bendSegment({ points: z.points, index: 0, delta: { x: 0, y: 24 }, sourceSide: 'right', targetSide: 'left' });
+		expect(w).toEqual([
+			{ x: 16, y: 0 },
+			{ x: 16, y: 24 },
+			{ x: 50, y: 24 },
+			{ x: 50, y: 40 }
+		]);
+		const r = reroute(w);
+		expect(axisAligned(r)).toBe(true);
+		expect(r).toEqual([{ x: 0, y: 0 }, ...w, { x: 100, y: 40 }]);
+	});
+
+	it('bends a straight wire into a detour with both stubs kept', () => {
+		// A straight run from (0,10) to (80,10) dragged up 30: (16,10) (16,-20) (64,-20) (64,10).
+		const straight = orthogonalRoute({ source: { x: 0, y: 10 }, sourceSide: 'right', target: { x: 80, y: 10 }, targetSide: 'left' }).points;
+		const w = bendSegment({ points: straight, index: 0, delta: { x: 3, y: -30 }, sourceSide: 'right', targetSide: 'left' });
+		expect(w).toEqual([
+			{ x: 16, y: 10 },
+			{ x: 16, y: -20 },
+			{ x: 64, y: -20 },
+			{ x: 64, y: 10 }
+		]);
+		expect(reroute(w, { x: 0, y: 10 }, { x: 80, y: 10 })).toEqual([{ x: 0, y: 10 }, ...w, { x: 80, y: 10 }]);
+	});
+
+	it('drags the same run twice: the second starts from the first', () => {
+		const once = reroute(bendSegment({ points: z.points, index: 1, delta: { x: 20, y: 0 }, sourceSide: 'right', targetSide: 'left' }));
+		const twice = bendSegment({ points: once, index: 1, delta: { x: -45, y: 0 }, sourceSide: 'right', targetSide: 'left' });
+		// 50 + 20 − 45 = 25.
+		expect(twice).toEqual([
+			{ x: 25, y: 0 },
+			{ x: 25, y: 40 }
+		]);
+	});
+
+	it('names a segment that is not there', () => {
+		expect(() => bendSegment({ points: z.points, index: 3, delta: { x: 1, y: 1 }, sourceSide: 'right', targetSide: 'left' })).toThrow(/bendSegment: no segment 3/);
+	});
+
+	it('puts a handle in the middle of each run long enough to grab', () => {
+		expect(bendHandles(z.points)).toEqual([
+			{ index: 0, x: 25, y: 0, vertical: false },
+			{ index: 1, x: 50, y: 20, vertical: true },
+			{ index: 2, x: 75, y: 40, vertical: false }
+		]);
+		expect(bendHandles(z.points, 45).map((h) => h.index)).toEqual([0, 2]);
 	});
 });

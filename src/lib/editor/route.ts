@@ -146,3 +146,64 @@ function finish(points: Point[]): Route {
 }
 
 const round = (n: number) => Math.round(n * 10) / 10;
+
+export type BendParams = {
+	/** The wire's route as drawn (orthogonalRoute(...).points): terminal to terminal. */
+	points: Point[];
+	/** Which segment is dragged: points[index] to points[index + 1]. */
+	index: number;
+	/** How far the pointer moved, in drawing units; only the part across the segment counts. */
+	delta: Point;
+	sourceSide: Side;
+	targetSide: Side;
+	stub?: number;
+};
+
+/**
+ * The waypoints that make a wire's route run with one segment moved sideways (a horizontal run
+ * up or down, a vertical run left or right), every other segment kept. A segment that ends on a
+ * terminal keeps a straight stub out of the terminal and steps over to the moved run, so the
+ * wire still leaves its part square. Feeding the result to orthogonalRoute draws that route.
+ * @example
+ * bendSegment({ points: [{ x: 0, y: 0 }, { x: 50, y: 0 }, { x: 50, y: 40 }, { x: 100, y: 40 }], index: 1, delta: { x: 30, y: 5 }, sourceSide: 'right', targetSide: 'left' })
+ * // [{ x: 80, y: 0 }, { x: 80, y: 40 }]: the vertical run moved 30 to the right
+ */
+export function bendSegment({ points, index, delta, sourceSide, targetSide, stub = 16 }: BendParams): Point[] {
+	if (points.length < 2) throw new Error('bendSegment: a route has at least two points');
+	if (!Number.isInteger(index) || index < 0 || index > points.length - 2) throw new Error(`bendSegment: no segment ${index} in a route of ${points.length - 1}`);
+	const a = points[index];
+	const b = points[index + 1];
+	const vertical = a.x === b.x && a.y !== b.y;
+	const move = (p: Point): Point => (vertical ? { x: Math.round(p.x + delta.x), y: p.y } : { x: p.x, y: Math.round(p.y + delta.y) });
+	const last = points.length - 1;
+	const out: Point[] = [];
+	for (let i = 0; i <= last; i++) {
+		const p = points[i];
+		const moved = i === index || i === index + 1;
+		if (!moved) {
+			out.push(p);
+			continue;
+		}
+		if (i === 0) {
+			// The source terminal stays: out along its side for the stub, then across to the moved run.
+			const s = { x: p.x + direction[sourceSide].x * stub, y: p.y + direction[sourceSide].y * stub };
+			out.push(p, s, move(s));
+		} else if (i === last) {
+			const t = { x: p.x + direction[targetSide].x * stub, y: p.y + direction[targetSide].y * stub };
+			out.push(move(t), t, p);
+		} else out.push(move(p));
+	}
+	return simplify(out).slice(1, -1);
+}
+
+/** Where the bend handles of a route sit: the middle of each segment long enough to grab. */
+export function bendHandles(points: Point[], minLength = 20): { index: number; x: number; y: number; vertical: boolean }[] {
+	const out: { index: number; x: number; y: number; vertical: boolean }[] = [];
+	for (let i = 0; i < points.length - 1; i++) {
+		const a = points[i];
+		const b = points[i + 1];
+		if (Math.abs(a.x - b.x) + Math.abs(a.y - b.y) < minLength) continue;
+		out.push({ index: i, x: (a.x + b.x) / 2, y: (a.y + b.y) / 2, vertical: a.x === b.x });
+	}
+	return out;
+}
