@@ -384,9 +384,17 @@ export function copyItems(doc: HarnessDocument, partIds: ReadonlySet<string>): C
 
 /**
  * Pastes a clipboard as new parts and wires: fresh ids, positions shifted by `offset`, and a
- * key number kept only where it is still free (otherwise the next free one).
+ * key number kept only where it is still free (otherwise the next free one). Wire codes are
+ * rewritten from the palette they were copied under (`from`, default this document's) by colour;
+ * a colour this palette lacks becomes its first colour with a note on the wire, and is counted
+ * in `recoded` so the board can say so.
  */
-export function pasteItems(doc: HarnessDocument, clip: Clipboard, offset: Position): { doc: HarnessDocument; partIds: string[]; wireIds: string[] } {
+export function pasteItems(
+	doc: HarnessDocument,
+	clip: Clipboard,
+	offset: Position,
+	from: Palette = paletteOf(doc)
+): { doc: HarnessDocument; partIds: string[]; wireIds: string[]; recoded: string[] } {
 	const ids = idsOf(doc);
 	const keys = new Set(doc.parts.map((p) => p.key));
 	const newIds = new Map<string, string>();
@@ -399,25 +407,31 @@ export function pasteItems(doc: HarnessDocument, clip: Clipboard, offset: Positi
 		return { ...p, id, key, position: { x: p.position.x + offset.x, y: p.position.y + offset.y } } as Part;
 	});
 	const palette = paletteOf(doc);
+	const recode = codeMapper(from, palette);
+	const recoded: string[] = [];
 	const wires = clip.wires
 		.filter((w) => newIds.has(w.from.part) && newIds.has(w.to.part))
 		.map((w) => {
 			const id = newId('w', (x) => ids.has(x));
 			ids.add(id);
-			const parsed = parseCode(w.code, palette);
+			const mapped = recode(w.code);
+			if (mapped === null) recoded.push(w.code);
+			const note = mapped === null ? `Pasted with code ${w.code}, which this diagram’s palette has no colour for.` : undefined;
 			return {
 				...w,
 				id,
-				code: parsed.ok ? formatCode(parsed.code) : palette.colours[0].code,
+				code: mapped ?? palette.colours[0].code,
 				from: { part: newIds.get(w.from.part)!, terminal: w.from.terminal },
 				to: { part: newIds.get(w.to.part)!, terminal: w.to.terminal },
-				waypoints: w.waypoints?.map((p) => ({ x: p.x + offset.x, y: p.y + offset.y }))
+				waypoints: w.waypoints?.map((p) => ({ x: p.x + offset.x, y: p.y + offset.y })),
+				...(note ? { notes: (w.notes ? `${note} ${w.notes}` : note).slice(0, 2000) } : {})
 			};
 		});
 	return {
 		doc: { ...doc, parts: [...doc.parts, ...parts], wires: [...doc.wires, ...wires] },
 		partIds: parts.map((p) => p.id),
-		wireIds: wires.map((w) => w.id)
+		wireIds: wires.map((w) => w.id),
+		recoded
 	};
 }
 
@@ -431,29 +445,37 @@ export type Unmapped = { code: string; wires: Wire[] };
  * it cannot write, with their wires, so the person hears of them before anything changes.
  */
 export function recodeFor(doc: HarnessDocument, palette: string | Palette): { wires: Wire[]; unmapped: Unmapped[] } {
-	const from = paletteOf(doc);
-	const to = resolvePalette(palette);
+	const recode = codeMapper(paletteOf(doc), resolvePalette(palette));
+	const unmapped = new Map<string, Wire[]>();
+	const wires = doc.wires.map((w) => {
+		const code = recode(w.code);
+		if (code === null) {
+			unmapped.set(w.code, [...(unmapped.get(w.code) ?? []), w]);
+			return w;
+		}
+		return code === w.code ? w : { ...w, code };
+	});
+	return { wires, unmapped: [...unmapped].map(([code, wires]) => ({ code, wires })) };
+}
+
+/** Rewrites a code from one palette into another (as recodeFor says), or null when it cannot. */
+export function codeMapper(from: Palette, to: Palette): (code: string) => string | null {
 	const byName = new Map(to.colours.map((c) => [c.name.toLowerCase(), c.code]));
 	const fromName = new Map(from.colours.map((c) => [c.code.toUpperCase(), c.name.toLowerCase()]));
-	const unmapped = new Map<string, Wire[]>();
 	const colour = (code: string): string | undefined => {
 		const named = byName.get(fromName.get(code.toUpperCase()) ?? '');
 		if (named) return named;
 		const same = parseCode(code, to);
 		return same.ok && !same.code.tracer ? same.code.base : undefined;
 	};
-	const wires = doc.wires.map((w) => {
-		const parsed = parseCode(w.code, from);
-		const base = parsed.ok ? colour(parsed.code.base) : undefined;
-		const tracer = parsed.ok && parsed.code.tracer ? colour(parsed.code.tracer) : null;
-		if (!base || tracer === undefined) {
-			unmapped.set(w.code, [...(unmapped.get(w.code) ?? []), w]);
-			return w;
-		}
-		const code = formatCode({ base, tracer });
-		return code === w.code ? w : { ...w, code };
-	});
-	return { wires, unmapped: [...unmapped].map(([code, wires]) => ({ code, wires })) };
+	return (text) => {
+		const parsed = parseCode(text, from);
+		if (!parsed.ok) return null;
+		const base = colour(parsed.code.base);
+		const tracer = parsed.code.tracer ? colour(parsed.code.tracer) : null;
+		if (!base || tracer === undefined) return null;
+		return formatCode({ base, tracer });
+	};
 }
 
 /**
