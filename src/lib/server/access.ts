@@ -200,13 +200,13 @@ export async function requireDiagram(
 
 /**
  * A diagnosis, reached through its diagram: looking at it needs view on the diagram, taking
- * readings or concluding needs edit. Read-only links do not reach diagnoses (they show one
+ * readings or concluding needs edit, deleting it (the vehicle's record) is the owner's. Read-only links do not reach diagnoses (they show one
  * drawing, not the owner's fault hunts), so a signed-in account is required.
  */
 export async function requireDiagnosis(
 	locals: App.Locals,
 	diagnosisId: string,
-	level: 'view' | 'edit'
+	level: 'view' | 'edit' | 'owner'
 ): Promise<{ diagnosis: Diagnosis; diagram: Diagram; vehicle: Vehicle; level: Level }> {
 	requireUser(locals);
 	if (!isId(diagnosisId)) error(404, NOT_FOUND);

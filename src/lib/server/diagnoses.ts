@@ -217,12 +217,12 @@ export async function addReadings(user: SessionUser, loaded: Loaded, input: z.ou
 	return { stored: rows.length, already: input.length - rows.length };
 }
 
-/** Strikes a reading (a slip of the probe): it stays in the record, the plan ignores it. */
+/** Strikes a reading (a slip of the probe): it stays in the record, the plan ignores it. False when there is no such reading. */
 export async function strikeReading(diagnosisId: string, readingId: number): Promise<boolean> {
 	const rows = await db
 		.update(diagnosisReadings)
-		.set({ supersededAt: new Date() })
-		.where(and(eq(diagnosisReadings.diagnosisId, diagnosisId), eq(diagnosisReadings.id, readingId), sql`${diagnosisReadings.supersededAt} is null`))
+		.set({ supersededAt: sql`coalesce(${diagnosisReadings.supersededAt}, now())` })
+		.where(and(eq(diagnosisReadings.diagnosisId, diagnosisId), eq(diagnosisReadings.id, readingId)))
 		.returning({ id: diagnosisReadings.id });
 	return rows.length > 0;
 }

@@ -30,9 +30,9 @@ export const PATCH: RequestHandler = endpoint(async ({ locals, params, request }
 	}
 });
 
-/** DELETE /api/diagnoses/:id → 204, with its readings. */
+/** DELETE /api/diagnoses/:id → 204, with its readings. The diagram's owner only: it is their vehicle's record. */
 export const DELETE: RequestHandler = endpoint(async ({ locals, params }) => {
-	const { diagnosis } = await requireDiagnosis(locals, params.id, 'edit');
+	const { diagnosis } = await requireDiagnosis(locals, params.id, 'owner');
 	await diagnosisStore.remove(diagnosis.id);
 	return new Response(null, { status: 204 });
 });
