@@ -34,6 +34,8 @@ interface Fixture {
 	sparePalette: string;
 	linkToken: string;
 	invitation: string;
+	/** A diagnosis on the main diagram, started by the owner. */
+	diagnosis: string;
 }
 
 type Url = (f: Fixture, role: Role) => string;
@@ -107,6 +109,8 @@ const TABLE: Record<string, Entry> = {
 	'/diagrams/[id]/copy': { url: d('/copy'), page: onDiagram('view', 200, 'page') },
 	'/diagrams/[id]/comments': { url: d('/comments'), page: onDiagram('comment', 200, 'page') },
 	'/diagrams/[id]/share': { url: d('/share'), page: onDiagram('owner', 200, 'page') },
+	// A diagnosis is seen through its diagram, with an account only (a read-only link does not reach it).
+	'/diagnoses/[id]/checklist': { url: (f) => `/diagnoses/${f.diagnosis}/checklist`, page: onDiagram('view', 200, 'page') },
 
 	'/api/health': { url: () => '/api/health', api: { GET: { expect: every(200) } } },
 	'/api/vehicles': {
@@ -155,6 +159,7 @@ const TABLE: Record<string, Entry> = {
 	'/api/diagrams/[id]/import': { url: a('/import'), api: { POST: { body: {}, expect: onDiagram('edit', 400, 'api') } } },
 	'/api/diagrams/[id]/predict': { url: a('/predict'), api: { POST: { body: {}, expect: onDiagram('view', 400, 'api') } } },
 	'/api/diagrams/[id]/probe-plan': { url: a('/probe-plan'), api: { POST: { body: {}, expect: onDiagram('view', 400, 'api') } } },
+	'/api/diagnoses/[id]/checklist.pdf': { url: (f) => `/api/diagnoses/${f.diagnosis}/checklist.pdf`, api: { GET: { expect: { ...onDiagram('view', 200, 'api'), link: 401 } } } },
 	'/api/diagrams/[id]/comments': {
 		url: a('/comments'),
 		api: { GET: { expect: onDiagram('comment', 200, 'api') }, POST: { body: {}, expect: onDiagram('comment', 400, 'api') } }
@@ -273,7 +278,11 @@ beforeAll(async () => {
 		return (await res.json()).palette.id as string;
 	};
 
-	fx = { vehicle: v, spareVehicle, diagram: main, spareDiagram: spare, page, sparePage, club, palette: await palette('Matrix codes'), sparePalette: await palette('Matrix spare codes'), linkToken, invitation };
+	const started = await api('POST', `/api/diagrams/${main}/diagnoses`, owner.cookie, { revision: 1, marks: [{ part: 'fuel-gauge', mark: 'reads-low' }, { part: 'temp-gauge', mark: 'reads-low' }] });
+	expect(started.status).toBe(201);
+	const diagnosis = (await started.json()).diagnosis.id as string;
+
+	fx = { vehicle: v, spareVehicle, diagram: main, spareDiagram: spare, page, sparePage, club, palette: await palette('Matrix codes'), sparePalette: await palette('Matrix spare codes'), linkToken, invitation, diagnosis };
 }, 120_000);
 
 afterAll(async () => {

@@ -48,8 +48,8 @@ export function regionSvg(doc: HarnessDocument, region: { parts: readonly string
 		const t = g.terminals.find((x) => x.name === terminal);
 		if (!t) continue;
 		const text = numbers.join(', ');
-		const w = 14 + text.length * 7.5;
-		const h = 20;
+		const w = 18 + text.length * 10.5;
+		const h = 26;
 		// Outside the box, away from the terminal's name, on the side the wire leaves.
 		const off = 16;
 		const cx = p.position.x + t.x + (t.side === 'left' ? -off - w / 2 : t.side === 'right' ? off + w / 2 : 0);
@@ -57,8 +57,8 @@ export function regionSvg(doc: HarnessDocument, region: { parts: readonly string
 		const r = (x: number) => Math.round(x * 10) / 10;
 		tags.push(
 			`<g class="step-tag" data-steps="${xmlEscape(text)}"><title>${xmlEscape(`Step ${text}: ${p.key} terminal ${terminal}`)}</title>` +
-				`<rect x="${r(cx - w / 2)}" y="${r(cy - h / 2)}" width="${r(w)}" height="${h}" rx="10" fill="#1b1f24"/>` +
-				`<text x="${r(cx)}" y="${r(cy + 4.5)}" text-anchor="middle" font-size="13" font-weight="700" style="fill:#ffffff">${xmlEscape(text)}</text></g>`
+				`<rect x="${r(cx - w / 2)}" y="${r(cy - h / 2)}" width="${r(w)}" height="${h}" rx="13" fill="#1b1f24"/>` +
+				`<text x="${r(cx)}" y="${r(cy + 6.5)}" text-anchor="middle" font-size="18" font-weight="700" style="fill:#ffffff">${xmlEscape(text)}</text></g>`
 		);
 	}
 	return svg.replace(/<\/svg>\s*$/, `<g class="step-tags">${tags.join('')}</g>\n</svg>\n`);
