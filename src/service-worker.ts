@@ -49,6 +49,15 @@ async function networkFirst(request: Request): Promise<Response> {
 	}
 }
 
+// A diagnosis page asks for itself, its checklist and its data to be kept (the first visit's
+// own request came before this worker was in charge, so it would not be cached otherwise).
+sw.addEventListener('message', (event) => {
+	const data = event.data as { type?: string; urls?: unknown } | null;
+	if (data?.type !== 'keep' || !Array.isArray(data.urls)) return;
+	const urls = data.urls.filter((u): u is string => typeof u === 'string' && OFFLINE.some((re) => re.test(u)));
+	event.waitUntil(Promise.all(urls.map((u) => networkFirst(new Request(u, { credentials: 'same-origin' })).catch(() => undefined))));
+});
+
 sw.addEventListener('fetch', (event) => {
 	const { request } = event;
 	const url = new URL(request.url);

@@ -65,15 +65,27 @@ export class Hunt {
 		const off = () => (this.online = false);
 		window.addEventListener('online', on);
 		window.addEventListener('offline', off);
+		// Not every network coming back says so: try the queue again now and then.
+		const retry = setInterval(() => void this.sync(), 15_000);
 		if (this.queued.length) {
 			void this.replan();
 			void this.sync();
 		}
+		this.keepForOffline();
 		return () => {
 			window.removeEventListener('online', on);
 			window.removeEventListener('offline', off);
+			clearInterval(retry);
 			this.planner.stop();
 		};
+	}
+
+	/** Ask the service worker to keep this diagnosis, its data and its checklist for use offline. */
+	private keepForOffline(): void {
+		const id = this.diagnosis.id;
+		navigator.serviceWorker?.ready
+			.then((registration) => registration.active?.postMessage({ type: 'keep', urls: [`/diagnoses/${id}`, `/diagnoses/${id}/checklist`, `/api/diagnoses/${id}`] }))
+			.catch(() => undefined);
 	}
 
 	/** A reading off the meter: queued at once (survives a reload), planned on, then sent. */
