@@ -69,7 +69,10 @@ test('checklist print page: cautions, every step with its expected readings, con
 	await page.screenshot({ path: testInfo.outputPath('checklist-print.png'), fullPage: true });
 	await page.pdf({ path: testInfo.outputPath('checklist-printed.pdf'), preferCSSPageSize: true, printBackground: true });
 
-	// On screen: choose Letter, and download the PDF.
+	// On screen: choose Letter, and download the PDF. Nothing on the page asks the network for
+	// anything once it has loaded (so it keeps working from the cache offline).
+	const asked: string[] = [];
+	page.on('request', (r) => asked.push(r.url()));
 	await page.emulateMedia({ media: 'screen' });
 	await expect(page.getByRole('button', { name: 'Print' })).toBeVisible();
 	await page.getByText('Letter', { exact: true }).click();
@@ -77,6 +80,7 @@ test('checklist print page: cautions, every step with its expected readings, con
 	expect(await page.evaluate(() => [...document.head.querySelectorAll('style')].some((s) => s.textContent?.includes('size:letter')))).toBe(true);
 	await page.getByText('A4', { exact: true }).click();
 	await page.screenshot({ path: testInfo.outputPath('checklist-screen.png') });
+	expect(asked).toEqual([]);
 
 	const downloading = page.waitForEvent('download');
 	await page.getByRole('link', { name: 'Download PDF' }).click();

@@ -108,6 +108,8 @@ describe('the print page /diagnoses/[id]/checklist', () => {
 		expect(pageSteps).toBe(await planSteps(diagnosisId));
 		expect(html).toContain('Cautions: read before you start');
 		expect(html).toContain('data-caution="battery"');
+		// The reading taken in the test above is on the page too.
+		expect(html).toContain('Readings taken so far');
 		// The region drawing travels inside the page, needing no request (offline after one visit).
 		expect(html).toMatch(/<img src="data:image\/svg\+xml;base64,/);
 		expect(html).toMatch(/\/api\/diagnoses\/[0-9a-f-]+\/checklist\.pdf/);
