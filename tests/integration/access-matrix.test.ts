@@ -36,6 +36,9 @@ interface Fixture {
 	invitation: string;
 	/** A diagnosis on the main diagram, started by the owner. */
 	diagnosis: string;
+	/** A second one, for the DELETE row; and a reading of the first, for striking. */
+	spareDiagnosis: string;
+	reading: number;
 }
 
 type Url = (f: Fixture, role: Role) => string;
@@ -110,6 +113,7 @@ const TABLE: Record<string, Entry> = {
 	'/diagrams/[id]/comments': { url: d('/comments'), page: onDiagram('comment', 200, 'page') },
 	'/diagrams/[id]/share': { url: d('/share'), page: onDiagram('owner', 200, 'page') },
 	// A diagnosis is seen through its diagram, with an account only (a read-only link does not reach it).
+	'/diagnoses/[id]': { url: (f) => `/diagnoses/${f.diagnosis}`, page: onDiagram('view', 200, 'page') },
 	'/diagnoses/[id]/checklist': { url: (f) => `/diagnoses/${f.diagnosis}/checklist`, page: onDiagram('view', 200, 'page') },
 
 	'/api/health': { url: () => '/api/health', api: { GET: { expect: every(200) } } },
@@ -159,6 +163,32 @@ const TABLE: Record<string, Entry> = {
 	'/api/diagrams/[id]/import': { url: a('/import'), api: { POST: { body: {}, expect: onDiagram('edit', 400, 'api') } } },
 	'/api/diagrams/[id]/predict': { url: a('/predict'), api: { POST: { body: {}, expect: onDiagram('view', 400, 'api') } } },
 	'/api/diagrams/[id]/probe-plan': { url: a('/probe-plan'), api: { POST: { body: {}, expect: onDiagram('view', 400, 'api') } } },
+	// Diagnoses: through their diagram, with an account only (a read-only link gets 401).
+	'/api/diagrams/[id]/diagnoses': {
+		url: a('/diagnoses'),
+		api: { GET: { expect: { ...onDiagram('view', 200, 'api'), link: 401 } }, POST: { body: {}, expect: { ...onDiagram('edit', 400, 'api'), link: 401 } } }
+	},
+	'/api/diagnoses/[id]': {
+		url: (f) => `/api/diagnoses/${f.diagnosis}`,
+		api: {
+			GET: { expect: { ...onDiagram('view', 200, 'api'), link: 401 } },
+			PATCH: { body: {}, expect: { ...onDiagram('edit', 400, 'api'), link: 401 } },
+			DELETE: { url: (f) => `/api/diagnoses/${f.spareDiagnosis}`, expect: { ...onDiagram('owner', 204, 'api'), link: 401 } }
+		}
+	},
+	'/api/diagnoses/[id]/readings': {
+		url: (f) => `/api/diagnoses/${f.diagnosis}/readings`,
+		api: { GET: { expect: { ...onDiagram('view', 200, 'api'), link: 401 } }, POST: { body: {}, expect: { ...onDiagram('edit', 400, 'api'), link: 401 } } }
+	},
+	// Striking is idempotent: a reading struck already answers 200 again.
+	'/api/diagnoses/[id]/readings/[readingId]': {
+		url: (f) => `/api/diagnoses/${f.diagnosis}/readings/${f.reading}`,
+		api: { DELETE: { expect: { ...onDiagram('edit', 200, 'api'), link: 401 } } }
+	},
+	'/api/diagnoses/[id]/conclude': {
+		url: (f) => `/api/diagnoses/${f.diagnosis}/conclude`,
+		api: { POST: { body: {}, expect: { ...onDiagram('edit', 400, 'api'), link: 401 } } }
+	},
 	'/api/diagnoses/[id]/checklist.pdf': { url: (f) => `/api/diagnoses/${f.diagnosis}/checklist.pdf`, api: { GET: { expect: { ...onDiagram('view', 200, 'api'), link: 401 } } } },
 	'/api/diagrams/[id]/comments': {
 		url: a('/comments'),
@@ -281,8 +311,16 @@ beforeAll(async () => {
 	const started = await api('POST', `/api/diagrams/${main}/diagnoses`, owner.cookie, { revision: 1, marks: [{ part: 'fuel-gauge', mark: 'reads-low' }, { part: 'temp-gauge', mark: 'reads-low' }] });
 	expect(started.status).toBe(201);
 	const diagnosis = (await started.json()).diagnosis.id as string;
+	const spareStarted = await api('POST', `/api/diagrams/${main}/diagnoses`, owner.cookie, { revision: 1, marks: [{ part: 'fuel-gauge', mark: 'dead' }] });
+	expect(spareStarted.status).toBe(201);
+	const spareDiagnosis = (await spareStarted.json()).diagnosis.id as string;
+	const taken = await api('POST', `/api/diagnoses/${diagnosis}/readings`, owner.cookie, {
+		readings: [{ clientId: crypto.randomUUID(), probe: 'volts:fuse-ign:out', outcome: 'value', value: -12.3, unit: 'V', takenAt: new Date().toISOString() }]
+	});
+	expect(taken.status).toBe(200);
+	const reading = (await taken.json()).readings[0].id as number;
 
-	fx = { vehicle: v, spareVehicle, diagram: main, spareDiagram: spare, page, sparePage, club, palette: await palette('Matrix codes'), sparePalette: await palette('Matrix spare codes'), linkToken, invitation, diagnosis };
+	fx = { vehicle: v, spareVehicle, diagram: main, spareDiagram: spare, page, sparePage, club, palette: await palette('Matrix codes'), sparePalette: await palette('Matrix spare codes'), linkToken, invitation, diagnosis, spareDiagnosis, reading };
 }, 120_000);
 
 afterAll(async () => {
