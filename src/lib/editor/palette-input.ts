@@ -13,7 +13,7 @@ const Colour = z.object({
 		.trim()
 		.min(1, 'A code is needed.')
 		.max(6, 'A code is at most 6 letters.')
-		.regex(/^[A-Za-z]+$/, 'A code is letters only, e.g. G or GN.'),
+		.regex(/^[A-Za-z]*$/, 'A code is letters only, e.g. G or GN.'),
 	name: z.string({ error: 'A colour name is needed.' }).trim().min(1, 'A colour name is needed.').max(40, 'A colour name is at most 40 characters.'),
 	display: z.string({ error: 'A screen colour is needed.' }).regex(/^#[0-9a-fA-F]{6}$/, 'A screen colour is written #rrggbb, e.g. #2e7d32.')
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { freeSpot } from './place';
+import { centredAt, droppedKind, freeSpot } from './place';
 
 // Positions worked by hand on a grid of box + gap (100 + 24 = 124 across, 50 + 24 = 74 down).
 describe('freeSpot', () => {
@@ -21,5 +21,20 @@ describe('freeSpot', () => {
 		}
 		// The first free ring is the third: distance from the middle is at least 2 steps down.
 		expect(Math.max(Math.abs(p.x / 124), Math.abs(p.y / 74))).toBe(3);
+	});
+});
+
+describe('dropping a part from the tray', () => {
+	it('centres the part on the drop point (worked by hand: 100 − 120/2 = 40, 50 − 60/2 = 20)', () => {
+		expect(centredAt({ x: 100, y: 50 }, { width: 120, height: 60 })).toEqual({ x: 40, y: 20 });
+		expect(centredAt({ x: 10.4, y: -7.6 }, { width: 21, height: 10 })).toEqual({ x: 0, y: -13 });
+	});
+
+	it('accepts only the kinds the circuit core knows', () => {
+		expect(droppedKind('relay')).toBe('relay');
+		expect(droppedKind('earth-point')).toBe('earth-point');
+		expect(droppedKind('flux-capacitor')).toBeNull();
+		expect(droppedKind('')).toBeNull();
+		expect(droppedKind(undefined)).toBeNull();
 	});
 });

@@ -16,7 +16,8 @@ export function droppedKind(data: string | undefined | null): PartKind | null {
  * @example centredAt({ x: 100, y: 50 }, { width: 120, height: 60 }) // { x: 40, y: 20 }
  */
 export function centredAt(point: Position, size: { width: number; height: number }): Position {
-	return { x: Math.round(point.x - size.width / 2), y: Math.round(point.y - size.height / 2) };
+	// `+ 0` turns a rounded -0 into 0.
+	return { x: Math.round(point.x - size.width / 2) + 0, y: Math.round(point.y - size.height / 2) + 0 };
 }
 
 export type Box = { x: number; y: number; width: number; height: number };
