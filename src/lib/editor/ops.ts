@@ -398,11 +398,17 @@ export function pasteItems(
 	const ids = idsOf(doc);
 	const keys = new Set(doc.parts.map((p) => p.key));
 	const newIds = new Map<string, string>();
+	// Free key numbers counted up once from the highest (nextKey per part would rescan every key).
+	let next = Number(nextKey(doc, keys));
+	const freeKey = () => {
+		while (keys.has(String(next))) next++;
+		return String(next);
+	};
 	const parts = clip.parts.map((p) => {
 		const id = newId('p', (x) => ids.has(x));
 		ids.add(id);
 		newIds.set(p.id, id);
-		const key = keys.has(p.key) ? nextKey(doc, keys) : p.key;
+		const key = keys.has(p.key) ? freeKey() : p.key;
 		keys.add(key);
 		return { ...p, id, key, position: { x: p.position.x + offset.x, y: p.position.y + offset.y } } as Part;
 	});
