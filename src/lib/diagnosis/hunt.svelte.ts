@@ -65,8 +65,13 @@ export class Hunt {
 		const off = () => (this.online = false);
 		window.addEventListener('online', on);
 		window.addEventListener('offline', off);
-		// Not every network coming back says so: try the queue again now and then.
-		const retry = setInterval(() => void this.sync(), 15_000);
+		// Not every network coming back says so: try the queue again now and then; and fetch the
+		// readings someone else may be taking on another phone.
+		const retry = setInterval(() => {
+			void this.sync();
+			if (document.visibilityState === 'visible') void this.refresh();
+		}, 15_000);
+		void this.refresh();
 		if (this.queued.length) {
 			void this.replan();
 			void this.sync();
@@ -108,6 +113,21 @@ export class Hunt {
 		} finally {
 			if (asked === this.planAsked) this.planning = false;
 		}
+	}
+
+	/** The readings on the server (another phone may have added some); plans again when they changed. */
+	async refresh(): Promise<void> {
+		if (this.syncing) return;
+		const r = await api.get<{ readings: ReadingJson[] }>(`/api/diagnoses/${this.diagnosis.id}/readings`);
+		if (!r.ok) {
+			if (r.status === 0) this.online = false;
+			return;
+		}
+		this.online = true;
+		const key = (list: ReadingJson[]) => list.map((x) => `${x.clientId}:${x.struck ? 1 : 0}`).join(',');
+		if (key(r.data.readings) === key(this.stored)) return;
+		this.stored = r.data.readings;
+		await this.replan();
 	}
 
 	/** Sends the queue; keeps it when the network is gone, drops what the server refuses for good. */
