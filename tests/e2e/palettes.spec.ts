@@ -35,6 +35,7 @@ test('make a palette from a built-in, see the stripe live, use it in a diagram, 
 	await expect(page.getByRole('status')).toContainText(`Saved “${name}” to your palettes.`);
 	const card = page.getByRole('article', { name });
 	await expect(card).toContainText('13 colours');
+	await page.screenshot({ path: `${process.env.LOOM_TEST_OUT ?? '.data/test'}/palettes-page.png`, fullPage: true });
 
 	const listed = await page.request.get('/api/palettes');
 	const mine = ((await listed.json()).palettes as { id: string; name: string; colours: { code: string }[] }[]).find((p) => p.name === name)!;
