@@ -160,3 +160,32 @@ test('change a part’s kind: key, label and matching wires stay; dropping wires
 	await expect(part).toHaveAttribute('data-kind', 'motor');
 	await expect(page.locator('[data-wire-id]')).toHaveCount(2);
 });
+
+test('slide a part out of the tray with a finger onto the drawing: it lands under the finger', async ({ browser }) => {
+	const context = await browser.newContext({ hasTouch: true });
+	const page = await context.newPage();
+	await signIn(page);
+	const id = await newDiagram(page.request, 'Touch drop loom', panelLampLoom('negative'));
+	await page.goto(`/diagrams/${id}/draw`);
+	await expect(page.locator('[data-part-id]')).toHaveCount(3);
+	const pane = (await page.locator('.svelte-flow').boundingBox())!;
+	const from = await centreOf(page, '[data-add-kind="gauge"]');
+	const drop = { x: Math.round(pane.x + pane.width * 0.3), y: Math.round(pane.y + pane.height * 0.75) };
+	// Real touch input through the browser's own touch events (Chrome DevTools Protocol).
+	const cdp = await context.newCDPSession(page);
+	const touch = (type: 'touchStart' | 'touchMove' | 'touchEnd', p?: Point) => cdp.send('Input.dispatchTouchEvent', { type, touchPoints: p ? [{ x: p.x, y: p.y }] : [] });
+	await touch('touchStart', from);
+	for (let i = 1; i <= 12; i++) await touch('touchMove', { x: from.x + ((drop.x - from.x) * i) / 12, y: from.y + ((drop.y - from.y) * i) / 12 });
+	await expect(page.getByTestId('tray-ghost')).toContainText('Gauge');
+	await touch('touchEnd');
+	const gauge = page.locator('[data-kind="gauge"]');
+	await expect(gauge).toHaveCount(1);
+	await expect(page.getByTestId('tray-ghost')).toHaveCount(0);
+	const box = (await gauge.boundingBox())!;
+	expect(Math.abs(box.x + box.width / 2 - drop.x)).toBeLessThanOrEqual(2);
+	expect(Math.abs(box.y + box.height / 2 - drop.y)).toBeLessThanOrEqual(2);
+	// A plain tap still adds one in the middle of the view.
+	await page.locator('[data-add-kind="fuse"]').tap();
+	await expect(page.locator('[data-kind="fuse"]')).toHaveCount(1);
+	await context.close();
+});

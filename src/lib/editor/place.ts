@@ -5,6 +5,8 @@ import type { Position } from '$lib/circuit/schema';
 
 /** The drag-and-drop data type a part kind travels under from the tray to the canvas. */
 export const PART_DRAG_TYPE = 'application/x-loomwright-part-kind';
+/** The attribute that marks the drawing as the place a part slid out of the tray by touch may land. */
+export const PART_DROP_ZONE = 'data-part-drop-zone';
 
 /** The kind a drop carries, or null when it is not a part from the tray. */
 export function droppedKind(data: string | undefined | null): PartKind | null {
