@@ -17,7 +17,9 @@ export async function setup(project: TestProject) {
 	if (!process.env.DATABASE_URL) throw new Error('integration tests need DATABASE_URL (scripts/test.sh sets it)');
 	execFileSync('node', ['--import', 'tsx', 'scripts/migrate.ts'], { stdio: 'inherit' });
 	server = spawn('node', [process.env.LOOM_BUILD_DIR ?? 'build'], {
-		env: { ...process.env, PORT: String(port), ORIGIN: origin, NODE_ENV: 'production', LOOM_DEV_MAIL: '1', BODY_SIZE_LIMIT: '16M' },
+		// The server keeps idle connections longer than the test client does (undici drops its own
+		// after 4 s), so the server never closes a socket the client is about to reuse (ECONNRESET).
+		env: { ...process.env, PORT: String(port), ORIGIN: origin, NODE_ENV: 'production', LOOM_DEV_MAIL: '1', BODY_SIZE_LIMIT: '16M', KEEP_ALIVE_TIMEOUT: '65' },
 		stdio: ['ignore', 'ignore', 'inherit']
 	});
 	const deadline = Date.now() + 30_000;
