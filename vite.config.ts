@@ -14,7 +14,9 @@ export default defineConfig({
 					environment: 'node',
 					// Generated-circuit checks run for seconds on a loaded 2-core machine; a time-out is
 					// not what these tests measure (speed lives in npm run bench).
-					testTimeout: 60_000
+					testTimeout: 60_000,
+					// beforeAll hooks plan whole diagnoses on the demo; a loaded 2-core machine needs the room.
+					hookTimeout: 60_000
 				}
 			},
 			{

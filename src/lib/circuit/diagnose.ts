@@ -281,38 +281,47 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		};
 	}
 	const cover = minimalProbeSet(table);
-	let planTable = table;
-	let plan = buildPlan(table);
-	let readingsOut: DiagnoseResult['readings'];
-	if (input.readings && Object.keys(input.readings).length) {
-		const taken: ReadingTaken[] = [];
-		const bad: { path: string; message: string }[] = [];
-		for (const [probe, value] of Object.entries(input.readings)) {
-			if (!specs.some((s) => s.id === probe)) {
-				bad.push({ path: `readings.${probe}`, message: `no probe "${probe}" in this plan` });
-				continue;
-			}
-			if (value === 'unreachable') taken.push({ probe, unreachable: true });
-			else if (value === 'OL') taken.push({ probe, reading: profile.ohms.overLimit });
-			else taken.push({ probe, reading: value });
-		}
-		if (bad.length) throw new DiagnoseError(bad);
-		const r = replan(table, taken);
-		planTable = r.table;
-		plan = r.plan;
-		readingsOut = { remaining: r.remaining, dropped: r.dropped, unexplained: r.unexplained, unavailable: r.unavailable };
-	}
-	return {
+	const plan = buildPlan(table);
+	const result: DiagnoseResult = {
 		suspects,
 		explainedBy,
 		probes: probesOut,
 		minimalSet: { probes: cover.probes, cost: cover.cost, exact: cover.exact },
 		ambiguityGroups: cover.ambiguityGroups,
-		plan: { steps: checklist(planTable, plan), expectedProbes: plan.expectedProbes, expectedCost: plan.expectedCost },
-		...(readingsOut ? { readings: readingsOut } : {}),
+		plan: { steps: checklist(table, plan), expectedProbes: plan.expectedProbes, expectedCost: plan.expectedCost },
 		notes,
 		fallbacks,
 		table
+	};
+	return input.readings && Object.keys(input.readings).length ? withReadings(result, input.readings, profile) : result;
+}
+
+/**
+ * A diagnosis planned again from readings taken: the suspects they contradict drop out and the
+ * plan is made from the rest (plan.ts replan). Needs no circuit solve — the result's prediction
+ * table holds every suspect's reading of every probe — so a result without readings can be kept
+ * and planned again cheaply after each reading.
+ */
+export function withReadings(result: DiagnoseResult, readings: Readonly<Record<string, number | 'OL' | 'unreachable'>>, profile: MeterProfile = ENTRY_DMM): DiagnoseResult {
+	const taken: ReadingTaken[] = [];
+	const bad: { path: string; message: string }[] = [];
+	const ids = new Set(result.probes.map((p) => p.id));
+	for (const [probe, value] of Object.entries(readings)) {
+		if (!ids.has(probe)) {
+			bad.push({ path: `readings.${probe}`, message: `no probe "${probe}" in this plan` });
+			continue;
+		}
+		if (value === 'unreachable') taken.push({ probe, unreachable: true });
+		else if (value === 'OL') taken.push({ probe, reading: profile.ohms.overLimit });
+		else taken.push({ probe, reading: value });
+	}
+	if (bad.length) throw new DiagnoseError(bad);
+	if (!result.suspects.length || !taken.length) return result;
+	const r = replan(result.table, taken);
+	return {
+		...result,
+		plan: { steps: checklist(r.table, r.plan), expectedProbes: r.plan.expectedProbes, expectedCost: r.plan.expectedCost },
+		readings: { remaining: r.remaining, dropped: r.dropped, unexplained: r.unexplained, unavailable: r.unavailable }
 	};
 }
 

@@ -1,6 +1,7 @@
 // Planning off the page's thread: diagnose() on a loom of fifty parts takes a few hundred ms,
 // during which the reading entry must keep answering. One message in, one out.
-import { planDiagnosis, type DiagnosisJson, type ReadingJson } from './session';
+import { basePlan, planDiagnosis, type DiagnosisJson, type ReadingJson } from './session';
+import type { DiagnoseResult } from '../circuit/diagnose';
 import { planView, type PlanView } from './view';
 import type { HarnessDocument } from '../circuit/schema';
 
@@ -9,10 +10,16 @@ export type PlanReply = { id: number; plan: PlanView } | { id: number; error: st
 
 const scope = self as unknown as { onmessage: ((event: MessageEvent<PlanRequest>) => void) | null; postMessage(message: PlanReply): void };
 
+// The plan before readings, kept while the diagnosis (marks, scenario, meter) stays the same:
+// each reading then re-plans from the prediction table without solving the circuit again.
+let kept: { key: string; base: DiagnoseResult } | null = null;
+
 scope.onmessage = (event) => {
 	const { id, document, diagnosis, readings } = event.data;
 	try {
-		scope.postMessage({ id, plan: planView(planDiagnosis(document, diagnosis, readings)) });
+		const key = JSON.stringify([document.parts.length, document.wires.length, diagnosis]);
+		if (kept?.key !== key) kept = { key, base: basePlan(document, diagnosis) };
+		scope.postMessage({ id, plan: planView(planDiagnosis(document, diagnosis, readings, kept.base)) });
 	} catch (e) {
 		scope.postMessage({ id, error: e instanceof Error ? e.message : String(e) });
 	}

@@ -1,7 +1,7 @@
 // A stored diagnosis as the planner sees it: the marks, scenario and meter it was started with,
 // and the readings taken so far (the latest of each probe counts; struck ones do not). Runs the
 // same in the server (API, checklist, PDF) and in the browser (the diagnosis page, offline too).
-import { diagnose, type DiagnoseResult } from '../circuit/diagnose';
+import { diagnose, withReadings, type DiagnoseResult } from '../circuit/diagnose';
 import { ENTRY_DMM, METER_PROFILES, MeterProfileSchema, type MeterProfile } from '../circuit/meter-profiles';
 import type { Scenario } from '../circuit/scenario';
 import type { HarnessDocument } from '../circuit/schema';
@@ -70,10 +70,16 @@ export interface DiagnosisPlan {
 	used: Record<string, number | 'OL' | 'unreachable'>;
 }
 
-export function planDiagnosis(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'>, readings: readonly ReadingJson[]): DiagnosisPlan {
+/** The plan before any reading: the expensive part (circuit solves for every suspect), worth keeping. */
+export function basePlan(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'>): DiagnoseResult {
+	return diagnose({ doc, scenario: d.scenario, marks: d.marks, meter: meterOf(d.meter) });
+}
+
+/** The plan with the readings taken; `base` (basePlan of the same document and diagnosis) saves the solves. */
+export function planDiagnosis(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'>, readings: readonly ReadingJson[], base?: DiagnoseResult): DiagnosisPlan {
 	const used = readingsForPlan(readings);
-	const result = diagnose({ doc, scenario: d.scenario, marks: d.marks, meter: meterOf(d.meter), readings: used });
-	return { result, used };
+	const start = base ?? basePlan(doc, d);
+	return { result: Object.keys(used).length ? withReadings(start, used, meterOf(d.meter)) : start, used };
 }
 
 /** Where the hunt stands, in words for the page's heading. */

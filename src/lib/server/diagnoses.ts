@@ -10,7 +10,8 @@ import { METER_PROFILES, MeterProfileSchema } from '../circuit/meter-profiles';
 import { checkScenario, defaultScenario } from '../circuit/scenario';
 import type { HarnessDocument } from '../circuit/schema';
 import { MARKS } from '../circuit/symptoms';
-import { planDiagnosis, type DiagnosisJson, type DiagnosisPlan, type ReadingJson } from '../diagnosis/session';
+import { basePlan, planDiagnosis, type DiagnosisJson, type DiagnosisPlan, type ReadingJson } from '../diagnosis/session';
+import type { DiagnoseResult } from '../circuit/diagnose';
 import { db } from './db';
 import { diagnoses, diagnosisReadings, diagramRevisions, users, type Diagnosis, type DiagnosisReading, type Diagram } from './db/schema';
 import { validateDocument } from './documents';
@@ -118,10 +119,32 @@ function checkedScenario(doc: HarnessDocument, raw: unknown) {
 	return sc.scenario;
 }
 
-/** Plans, turning the planner's field errors into a 400 under `prefix`. */
-function plan(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'>, readings: ReadingJson[]): DiagnosisPlan {
+// Plans before readings, per diagnosis version (marks, scenario and meter change the version;
+// the document is fixed by the diagnosis's revision). The circuit solves are the cost; readings
+// then re-plan from the kept prediction table. A small LRU: most recently used last.
+const KEEP = 64;
+const kept = new Map<string, DiagnoseResult>();
+
+function base(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'> & { id?: string; version?: number }): DiagnoseResult {
+	const key = d.id ? `${d.id}:${d.version}` : null;
+	const hit = key ? kept.get(key) : undefined;
+	if (hit) {
+		kept.delete(key!);
+		kept.set(key!, hit);
+		return hit;
+	}
+	const made = basePlan(doc, d);
+	if (key) {
+		kept.set(key, made);
+		if (kept.size > KEEP) kept.delete(kept.keys().next().value!);
+	}
+	return made;
+}
+
+/** Plans, turning the planner's field errors into a 400. */
+function plan(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'> & { id?: string; version?: number }, readings: ReadingJson[]): DiagnosisPlan {
 	try {
-		return planDiagnosis(doc, d, readings);
+		return planDiagnosis(doc, d, readings, base(doc, d));
 	} catch (e) {
 		if (e instanceof DiagnoseError) throw new BadRequest('Some fields need fixing.', e.issues);
 		throw e;
@@ -142,6 +165,7 @@ export async function start(user: SessionUser, diagram: Diagram, input: z.output
 		.insert(diagnoses)
 		.values({ diagramId: diagram.id, vehicleId: diagram.vehicleId, startedBy: user.id, diagramRevision: diagram.revision, title, ...draft })
 		.returning();
+	kept.set(`${row.id}:${row.version}`, planned.result);
 	return { diagnosis: toJson(row), plan: planned };
 }
 

@@ -1,0 +1,48 @@
+import { describe, expect, it } from 'vitest';
+import { demoHarness } from '../circuit/demo';
+import { defaultScenario } from '../circuit/scenario';
+import { OPEN_HUNT } from './demo';
+import { basePlan, planDiagnosis, readingsForPlan, type ReadingJson } from './session';
+
+const r = (probeId: string, takenAt: string, value: number | null, extra: Partial<ReadingJson> = {}): ReadingJson => ({
+	clientId: crypto.randomUUID(),
+	probeId,
+	outcome: value === null ? 'unreachable' : 'value',
+	value,
+	unit: 'V',
+	note: '',
+	takenAt,
+	...extra
+});
+
+describe('readings the planner is told', () => {
+	it('takes the latest reading of each probe, ignores struck ones, and passes "couldn\u2019t reach" and over-range on', () => {
+		const used = readingsForPlan([
+			r('a', '2026-01-01T10:00:00.000Z', 1),
+			r('a', '2026-01-01T10:05:00.000Z', 2),
+			r('a', '2026-01-01T10:09:00.000Z', 9, { struck: true }),
+			r('b', '2026-01-01T10:01:00.000Z', null),
+			r('c', '2026-01-01T10:02:00.000Z', null, { outcome: 'over-range' })
+		]);
+		expect(used).toEqual({ a: 2, b: 'unreachable', c: 'OL' });
+	});
+});
+
+describe('planning again from the kept plan', () => {
+	it('gives what a fresh plan with the same readings gives, without solving again', () => {
+		const doc = demoHarness();
+		const d = { scenario: defaultScenario(doc), marks: OPEN_HUNT.marks, meter: 'entry-dmm' as const };
+		const base = basePlan(doc, d);
+		const first = base.plan.steps[0].probe;
+		const readings = [r(first, '2026-01-01T10:00:00.000Z', -6.85)];
+		const kept = planDiagnosis(doc, d, readings, base);
+		const fresh = planDiagnosis(doc, d, readings);
+		expect(kept.result.readings).toEqual(fresh.result.readings);
+		expect(kept.result.plan).toEqual(fresh.result.plan);
+		// The reading narrowed the suspects (the planted fault is among those left).
+		expect(kept.result.readings!.remaining.length).toBeLessThan(base.suspects.length);
+		expect(kept.result.readings!.remaining.map((x) => x.suspect)).toContain(OPEN_HUNT.plantedFault);
+		// The kept plan itself is unchanged by planning again from it.
+		expect(base.readings).toBeUndefined();
+	});
+});
