@@ -29,6 +29,7 @@ import { addCurrentSource, addElement, type Circuit, type Element, type Source, 
 import type { Change, Hypothesis } from './faults';
 import { probeNode, type ProbePoint } from './meters';
 import { factorCircuit, solveCircuit, sourceVector, type Solution } from './solve';
+import type { Factorization } from './sparse';
 
 /** What is read: a DMM on volts, a test lamp, a DMM on ohms (current injected), or the current a part draws. */
 export type Meter =
@@ -156,6 +157,147 @@ interface Column {
 	y: Float64Array;
 	/** The stabilizers' share of it: ỹ = y − Yₛ c. */
 	c: Float64Array;
+	/** Where a value was formed as a difference, the magnitudes before it (for the rounding bound); else |y|. */
+	mag?: Float64Array;
+}
+
+type SparseVec = { idx: Int32Array; val: Float64Array };
+
+/** a − b of two sparse vectors with rising positions. */
+function sparseDiff(a: SparseVec | null, b: SparseVec | null): SparseVec {
+	const ai = a?.idx ?? new Int32Array(0);
+	const bi = b?.idx ?? new Int32Array(0);
+	const idx: number[] = [];
+	const val: number[] = [];
+	let p = 0;
+	let q = 0;
+	while (p < ai.length || q < bi.length) {
+		const x = p < ai.length ? ai[p] : Infinity;
+		const y = q < bi.length ? bi[q] : Infinity;
+		if (x === y) {
+			idx.push(x);
+			val.push(a!.val[p++] - b!.val[q++]);
+		} else if (x < y) {
+			idx.push(x);
+			val.push(a!.val[p++]);
+		} else {
+			idx.push(y);
+			val.push(-b!.val[q++]);
+		}
+	}
+	return { idx: Int32Array.from(idx), val: Float64Array.from(val) };
+}
+
+/**
+ * A meter's column known only where the small systems read it: at a fixed set of nodes (the
+ * relays' and stabilizers' nodes) and at its own two nodes, from entries of the inverse
+ * (`Factorization.unitForward`), not from a full solve. At a fault's nodes it is read per
+ * hypothesis from the fault nodes' own columns by symmetry of G⁻¹: eᵢᵀG⁻¹u = uᵀ(G⁻¹eᵢ).
+ */
+interface SparseColumn {
+	a: number;
+	b: number;
+	/** Largest sum of term magnitudes behind the values (Ω). */
+	scale: number;
+	/** Values at the fixed nodes (in their order). */
+	fixed: Float64Array;
+	ya: number;
+	yb: number;
+	/** The stabilizers' share (as `Column.c`). */
+	c: Float64Array;
+}
+
+/** Fills a scratch vector with a sparse column where one hypothesis reads it. */
+class ColumnScratch {
+	readonly y: Float64Array;
+	readonly mag: Float64Array;
+	private written: number[] = [];
+	constructor(
+		n: number,
+		private readonly fixedNodes: readonly number[],
+		private readonly nodeColumn: (i: number) => Float64Array,
+		private readonly ys: readonly Float64Array[]
+	) {
+		// Never-written entries are NaN: a read outside the filled nodes shows at once.
+		this.y = new Float64Array(n).fill(NaN);
+		this.mag = new Float64Array(n).fill(NaN);
+	}
+
+	fill(col: SparseColumn, faultNodes: readonly number[]): Column {
+		const { y, mag, ys } = this;
+		for (const i of this.written) {
+			y[i] = NaN;
+			mag[i] = NaN;
+		}
+		this.written.length = 0;
+		const put = (i: number, v: number, m: number) => {
+			if (i < 0) return;
+			y[i] = v;
+			mag[i] = m;
+			this.written.push(i);
+		};
+		for (const f of faultNodes) {
+			if (f < 0) continue;
+			const r = this.nodeColumn(f);
+			const ra = col.a >= 0 ? r[col.a] : 0;
+			const rb = col.b >= 0 ? r[col.b] : 0;
+			let v = ra - rb;
+			let m = Math.abs(ra) + Math.abs(rb);
+			for (let q = 0; q < ys.length; q++) {
+				const t = ys[q][f] * col.c[q];
+				v -= t;
+				m += Math.abs(t);
+			}
+			put(f, v, m);
+		}
+		this.fixedNodes.forEach((d, q) => put(d, col.fixed[q], Math.abs(col.fixed[q])));
+		put(col.a, col.ya, Math.abs(col.ya));
+		put(col.b, col.yb, Math.abs(col.yb));
+		return { y, c: col.c, mag };
+	}
+}
+
+/** Raw (unregulated) sparse column of the pair (a, b) on a factorisation, at the given nodes. */
+function rawSparse(forward: (i: number) => SparseVec, a: number, b: number, nodes: readonly number[], dense: Float64Array): { fixed: Float64Array; ya: number; yb: number; scale: number } {
+	const wa = a >= 0 ? forward(a) : null;
+	const wb = b >= 0 ? forward(b) : null;
+	// wₐ − w_b scattered into a dense scratch (zero outside the two paths), so each entry is one gather.
+	if (wa) for (let q = 0; q < wa.idx.length; q++) dense[wa.idx[q]] += wa.val[q];
+	if (wb) for (let q = 0; q < wb.idx.length; q++) dense[wb.idx[q]] -= wb.val[q];
+	let scale = 0;
+	const dot = (w: SparseVec) => {
+		let v = 0;
+		let m = 0;
+		for (let q = 0; q < w.idx.length; q++) {
+			const t = w.val[q] * dense[w.idx[q]];
+			v += t;
+			m += Math.abs(t);
+		}
+		if (m > scale) scale = m;
+		return v;
+	};
+	const fixed = new Float64Array(nodes.length);
+	for (let q = 0; q < nodes.length; q++) fixed[q] = dot(forward(nodes[q]));
+	const ya = wa ? dot(wa) : 0;
+	const yb = wb ? dot(wb) : 0;
+	if (wa) for (let q = 0; q < wa.idx.length; q++) dense[wa.idx[q]] = 0;
+	if (wb) for (let q = 0; q < wb.idx.length; q++) dense[wb.idx[q]] = 0;
+	return { fixed, ya, yb, scale };
+}
+
+/**
+ * Above this size of the terms (Ω) in a sparse column's sums, the column is solved in full
+ * instead: a part hanging on the leakage has transfer resistances near 1/gmin, and the sums of
+ * the inverse's entries lose the digits a full solve keeps.
+ */
+const SPARSE_SCALE_LIMIT = 1e4;
+
+function cachedForward(f: Factorization, cache: Map<number, SparseVec>): (i: number) => SparseVec {
+	return (i) => {
+		let w = cache.get(i);
+		if (!w) cache.set(i, (w = f.unitForward(i)));
+		return w;
+	};
 }
 
 /** One solved circuit (healthy, or a fallback's faulted one) to update from. */
@@ -180,6 +322,12 @@ export class Base {
 	/** Per relay (in c.relays order): pulled in in the base; its coil below pull-in there (held in). */
 	readonly energisedAt: boolean[];
 	readonly coilBelowPullIn: boolean[];
+	private readonly forwards = new Map<number, SparseVec>();
+	private readonly nodeCols = new Map<number, Float64Array>();
+	private readonly sparseCols = new Map<string, SparseColumn>();
+	private readonly deviceIndex = new Map<number, number>();
+	private scratchFill?: ColumnScratch;
+	private denseScratch?: Float64Array;
 
 	constructor(c: Circuit, solution: Solution = solveCircuit(c)) {
 		this.c = c;
@@ -220,6 +368,7 @@ export class Base {
 		for (const st of c.stabilizers) nodes.add(st.input).add(st.output).add(st.earth);
 		nodes.delete(-1);
 		this.deviceNodes = [...nodes];
+		this.deviceNodes.forEach((d, q) => this.deviceIndex.set(d, q));
 		this.energisedAt = c.relays.map((r) => solution.energised.has(r.part));
 		this.coilBelowPullIn = c.relays.map((r) => this.coilVolts.get(r.part)! < r.pullIn);
 	}
@@ -230,16 +379,59 @@ export class Base {
 	 * starting to regulate) may lead the full solve down another path to another settled state
 	 * (relays that feed each other's coils can settle either way): such faults are solved in full.
 	 */
-	private start?: { f: ReturnType<typeof factorCircuit>; x: Float64Array; g: Float64Array; cols: Map<string, Float64Array> };
+	private start?: {
+		f: ReturnType<typeof factorCircuit>;
+		x: Float64Array;
+		g: Float64Array;
+		cols: Map<string, Float64Array>;
+		/** The nodes every replay reads: relay coils and contacts, stabilizers. */
+		fixed: number[];
+		forward: (i: number) => SparseVec;
+		sparse: Map<string, SparseColumn>;
+		scratch: ColumnScratch;
+		dense: Float64Array;
+	};
 
 	private startState() {
 		if (!this.start) {
-			const g = Float64Array.from(this.c.elements, (e) => e.g);
-			const f = factorCircuit(this.c, g);
-			const x = f.solve(sourceVector(this.c, g));
-			this.start = { f, x, g, cols: new Map() };
+			const c = this.c;
+			const g = Float64Array.from(c.elements, (e) => e.g);
+			const f = factorCircuit(c, g);
+			const x = f.solve(sourceVector(c, g));
+			const nodes = new Set<number>();
+			for (const r of c.relays) for (const k of [r.coil, r.normallyOpen, r.normallyClosed]) nodes.add(c.elements[k].a).add(c.elements[k].b);
+			for (const s of c.stabilizers) nodes.add(s.input).add(s.output).add(s.earth).add(c.elements[s.element].a).add(c.elements[s.element].b);
+			nodes.delete(-1);
+			const fixed = [...nodes];
+			const n = c.nodeNames.length;
+			const nodeCols = new Map<number, Float64Array>();
+			const nodeColumn = (i: number) => {
+				let y = nodeCols.get(i);
+				if (!y) {
+					const u = new Float64Array(n);
+					u[i] = 1;
+					nodeCols.set(i, (y = f.solve(u)));
+				}
+				return y;
+			};
+			this.start = { f, x, g, cols: new Map(), fixed, forward: cachedForward(f, new Map()), sparse: new Map(), scratch: new ColumnScratch(n, fixed, nodeColumn, []), dense: new Float64Array(n) };
 		}
 		return this.start;
+	}
+
+	/** A meter's column on the first round's matrix, where a replay reads it, for one fault's nodes. */
+	private startMeterColumn(a: number, b: number, faultNodes: readonly number[]): Float64Array | null {
+		const st = this.startState();
+		const key = `${a},${b}`;
+		let sc = st.sparse.get(key);
+		if (!sc) {
+			const raw = rawSparse(st.forward, a, b, st.fixed, st.dense);
+			sc = { a, b, ...raw, c: new Float64Array(0) };
+			st.sparse.set(key, sc);
+		}
+		// Badly scaled: the caller solves the full column instead.
+		if (sc.scale > SPARSE_SCALE_LIMIT) return null;
+		return st.scratch.fill(sc, faultNodes).y;
 	}
 
 	/**
@@ -312,7 +504,14 @@ export class Base {
 				}
 			}
 		}
-		if (meter) extra.push(meter);
+		let meterY: Float64Array | null = null;
+		if (meter) {
+			extra.push(meter);
+			const faultNodes: number[] = [];
+			for (const k of gNow.keys()) faultNodes.push(c.elements[k].a, c.elements[k].b);
+			for (const e of extra) if (e !== meter) faultNodes.push(e.a, e.b);
+			meterY = this.startMeterColumn(meter.a, meter.b, faultNodes);
+		}
 		const builtOf = (k: number) => c.elements[k];
 		const g = (k: number) => gNow.get(k) ?? st.g[k];
 		const shift = rhsUsed ? st.f.solve(rhs) : null;
@@ -326,7 +525,7 @@ export class Base {
 				const d = gk - st.g[k];
 				if (d !== 0) cols.push({ a: builtOf(k).a, b: builtOf(k).b, delta: d, y: column(builtOf(k).a, builtOf(k).b) });
 			}
-			for (const e of extra) cols.push({ ...e, y: column(e.a, e.b) });
+			for (const e of extra) cols.push({ ...e, y: e === meter && meterY ? meterY : column(e.a, e.b) });
 			const m = cols.length;
 			const mat = cols.map((ci) => Float64Array.from(cols, (cj) => at(cj.y, ci.a) - at(cj.y, ci.b)));
 			cols.forEach((ci, i) => (mat[i][i] += 1 / ci.delta));
@@ -440,6 +639,56 @@ export class Base {
 		return col;
 	}
 
+	/** Raw response to a unit injection at node i (cached). */
+	nodeColumn(i: number): Float64Array {
+		let y = this.nodeCols.get(i);
+		if (!y) {
+			const u = new Float64Array(this.c.nodeNames.length);
+			u[i] = 1;
+			y = this.solution.factor.solve(u);
+			this.nodeCols.set(i, y);
+		}
+		return y;
+	}
+
+	/** A meter's regulated column where the small systems read it (cached per node pair). */
+	sparseColumn(a: number, b: number): SparseColumn {
+		const key = `${a},${b}`;
+		let sc = this.sparseCols.get(key);
+		if (!sc) {
+			const raw = rawSparse(cachedForward(this.solution.factor, this.forwards), a, b, this.deviceNodes, (this.denseScratch ??= new Float64Array(this.c.nodeNames.length)));
+			const k = this.regulated.length;
+			const c = new Float64Array(k);
+			if (k) {
+				const rawAt = (i: number) => (i < 0 ? 0 : i === a ? raw.ya : i === b ? raw.yb : raw.fixed[this.deviceIndex.get(i)!]);
+				const wy = new Float64Array(k);
+				for (let r = 0; r < k; r++) {
+					const st = this.c.stabilizers[this.regulated[r]];
+					wy[r] = this.c.polarity * (rawAt(st.output) - rawAt(st.earth));
+				}
+				for (let r = 0; r < k; r++) {
+					let t = 0;
+					for (let q = 0; q < k; q++) t += this.pInv[r][q] * wy[q];
+					c[r] = t;
+				}
+			}
+			const reg = (i: number, v: number) => {
+				if (i < 0) return 0;
+				for (let r = 0; r < k; r++) v -= this.ys[r][i] * c[r];
+				return v;
+			};
+			const fixed = Float64Array.from(this.deviceNodes, (d, q) => reg(d, raw.fixed[q]));
+			sc = { a, b, scale: raw.scale, fixed, ya: reg(a, raw.ya), yb: reg(b, raw.yb), c };
+			this.sparseCols.set(key, sc);
+		}
+		return sc;
+	}
+
+	/** The scratch a sparse meter column is filled into for one hypothesis (one at a time). */
+	scratch(): ColumnScratch {
+		return (this.scratchFill ??= new ColumnScratch(this.c.nodeNames.length, this.deviceNodes, (i) => this.nodeColumn(i), this.ys));
+	}
+
 	/** Regulated response to a right-hand-side change. */
 	responseTo(rhs: Float64Array): Column {
 		return this.regulate(this.solution.factor.solve(rhs));
@@ -531,6 +780,8 @@ function solveSmall(m: Float64Array[], rhs: Float64Array): Float64Array | null {
 
 /** A fault translated for one base: conductance changes on node pairs, a right-hand-side change, set-point changes. */
 interface Prepared {
+	/** The nodes of the changed elements (where a meter's sparse column must be read). */
+	faultNodes: number[];
 	cols: { a: number; b: number; delta: number; element: number; col: Column }[];
 	/** x̂ = x + response to the right-hand-side and set-point changes. */
 	shift: Float64Array | null;
@@ -564,13 +815,14 @@ const CANCELLATION = 1e-7;
 
 function prepare(base: Base, changes: readonly Change[]): Prepared {
 	const c = base.c;
-	const prepared: Prepared = { cols: [], shift: null, shiftC: null, targets: new Map(), stuck: new Set(), gNew: new Map(), idleTargets: new Map() };
+	const prepared: Prepared = { faultNodes: [], cols: [], shift: null, shiftC: null, targets: new Map(), stuck: new Set(), gNew: new Map(), idleTargets: new Map() };
 	const rhs = new Float64Array(c.nodeNames.length);
 	let rhsUsed = false;
 	const setPointShift = new Map<number, number>();
 	const addCol = (a: number, b: number, delta: number, element: number) => {
 		if (delta === 0) return;
 		prepared.cols.push({ a, b, delta, element, col: base.column(a, b) });
+		prepared.faultNodes.push(a, b);
 	};
 	for (const ch of changes) {
 		if (ch.type === 'element') {
@@ -690,6 +942,7 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 	const cd = new Float64Array(m);
 	const cy: Float64Array[] = new Array(m);
 	const cc: Float64Array[] = new Array(m);
+	const cm: (Float64Array | undefined)[] = new Array(m);
 	for (let j = 0; j < nf; j++) {
 		const col = p.cols[j];
 		ca[j] = col.a;
@@ -697,6 +950,7 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 		cd[j] = col.delta;
 		cy[j] = col.col.y;
 		cc[j] = col.col.c;
+		cm[j] = col.col.mag;
 	}
 	if (withMeter) {
 		ca[nf] = meter!.a;
@@ -704,7 +958,9 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 		cd[nf] = meter!.delta;
 		cy[nf] = meter!.col.y;
 		cc[nf] = meter!.col.c;
+		cm[nf] = meter!.col.mag;
 	}
+	const magAt = (j: number, i: number) => (i < 0 ? 0 : cm[j] ? cm[j]![i] : Math.abs(cy[j][i]));
 	const x = base.x;
 	const shift = p.shift;
 	const inject = meter?.inject ?? 0;
@@ -749,7 +1005,7 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 			const a = ca[k];
 			const b = cb[k];
 			let s = Math.abs(hat(a)) + Math.abs(hat(b)) + Math.abs(alpha[k] / cd[k]);
-			for (let j = 0; j < m; j++) s += (Math.abs(at(cy[j], a)) + Math.abs(at(cy[j], b))) * Math.abs(alpha[j]);
+			for (let j = 0; j < m; j++) s += (magAt(j, a) + magAt(j, b)) * Math.abs(alpha[j]);
 			load[k] = s;
 		}
 		for (let j = 0; j < m; j++) {
@@ -770,7 +1026,7 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 		for (let j = 0; j < m; j++) {
 			const ya = at(cy[j], a);
 			const yb = at(cy[j], b);
-			e += Math.abs(alpha[j]) * (Math.abs(ya) + Math.abs(yb));
+			e += Math.abs(alpha[j]) * (magAt(j, a) + magAt(j, b));
 			d += eAlpha[j] * Math.abs(ya - yb);
 		}
 		return EPS * e + d;
@@ -896,13 +1152,22 @@ function readEvaluated(c: Circuit, ev: Evaluated, meter: Meter): Reading {
 	return readingFrom(meter, ev.at(probeNode(c, meter.a)), ev.at(probeNode(c, meter.b)), 0);
 }
 
-type MeterOn = { a: number; b: number; delta: number; inject: number; col: Column };
+type MeterOn = { a: number; b: number; delta: number; inject: number; sparse?: SparseColumn; dense?: Column };
 
-/** The meters' columns on a base (one solve each, kept by the base). */
+/**
+ * The meters' columns on a base (kept by the base): sparse (entries of the inverse, no full
+ * solve) for a voltmeter or test lamp on a well-scaled part of the circuit; a full solve for an
+ * ohmmeter (its circuit, battery out, hangs on the leakage) or where the sums are badly scaled.
+ */
 function metersOn(b: Base, meters: readonly Meter[]): (MeterOn | undefined)[] {
 	return meters.map((m) => {
 		const mc = meterColumn(b.c, m);
-		return mc && { ...mc, col: b.column(mc.a, mc.b) };
+		if (!mc) return undefined;
+		if (mc.inject === 0) {
+			const sparse = b.sparseColumn(mc.a, mc.b);
+			if (sparse.scale <= SPARSE_SCALE_LIMIT) return { ...mc, sparse };
+		}
+		return { ...mc, dense: b.column(mc.a, mc.b) };
 	});
 }
 
@@ -942,7 +1207,7 @@ function readOn(b: Base, p: Prepared, changes: readonly Change[], meter: Meter, 
 		if (!exactEnough(ev, meter, e.a, e.b, ev.gOf(meter.element))) return 'inexact';
 		return readEvaluated(b.c, ev, meter);
 	}
-	const ev = evaluatePrepared(b, p, mc);
+	const ev = evaluatePrepared(b, p, mc && { ...mc, col: mc.dense ?? b.scratch().fill(mc.sparse!, p.faultNodes) });
 	if (!ev.ok) return 'flip';
 	// A test lamp loads the circuit: it too must leave the solver's settling path as it was.
 	if (meter.kind === 'lamp' && mc && !b.sameSettledState(changes, mc)) return 'flip';

@@ -208,6 +208,28 @@ export interface Factorization {
 	nnzL: number;
 	/** Pivots raised to the floor (rounding in a floating group of nodes). */
 	raisedPivots: number;
+	/**
+	 * w = D^(−1/2) L⁻¹ P eᵢ as a sparse vector (positions in elimination order, rising), so that
+	 * (A⁻¹)ᵢⱼ = wᵢ · wⱼ. Its nonzeros lie on the elimination-tree path from node i to the root
+	 * (Gilbert 1994, "Predicting structure in sparse matrix computations", SIAM J. Matrix Anal.
+	 * Appl. 15(1)), so a few entries of the inverse cost a path, not a full solve.
+	 */
+	unitForward(i: number): { idx: Int32Array; val: Float64Array };
+}
+
+/** (A⁻¹)ᵢⱼ from two `unitForward` vectors (a merge of their rising positions). */
+export function inverseEntry(wi: { idx: Int32Array; val: Float64Array }, wj: { idx: Int32Array; val: Float64Array }): number {
+	let s = 0;
+	let p = 0;
+	let q = 0;
+	while (p < wi.idx.length && q < wj.idx.length) {
+		const a = wi.idx[p];
+		const b = wj.idx[q];
+		if (a === b) s += wi.val[p++] * wj.val[q++];
+		else if (a < b) p++;
+		else q++;
+	}
+	return s;
 }
 
 /**
@@ -287,5 +309,23 @@ export function factorize(sym: Symbolic, values: Float64Array, pivotFloor = 0): 
 		for (let k = 0; k < n; k++) out[perm[k]] = x[k];
 		return out;
 	};
-	return { n, solve, nnzL: sym.nnzL, raisedPivots: raised };
+	const scratch = new Float64Array(n);
+	const unitForward = (i: number) => {
+		const path: number[] = [];
+		for (let k = pinv[i]; k !== -1; k = parent[k]) path.push(k);
+		scratch[pinv[i]] = 1;
+		for (const j of path) {
+			const xj = scratch[j];
+			if (xj === 0) continue;
+			for (let p = lp[j]; p < lp[j + 1]; p++) scratch[li[p]] -= lx[p] * xj;
+		}
+		const idx = Int32Array.from(path);
+		const val = new Float64Array(path.length);
+		path.forEach((k, q) => {
+			val[q] = scratch[k] / Math.sqrt(d[k]);
+			scratch[k] = 0;
+		});
+		return { idx, val };
+	};
+	return { n, solve, nnzL: sym.nnzL, raisedPivots: raised, unitForward };
 }

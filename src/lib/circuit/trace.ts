@@ -182,6 +182,9 @@ function build(doc: HarnessDocument, scenario: Scenario, energised: ReadonlySet<
 	};
 }
 
+/** Most vertex visits of one path enumeration (see `paths`); a few milliseconds of work. */
+const WALK_BUDGET = 20_000;
+
 /** Prepare a tracer for one document and scenario; reuse it for many questions. */
 export function prepareTrace(doc: HarnessDocument, scenario: Scenario, options: TraceOptions = {}): Tracer {
 	const g = build(doc, scenario, options.energised ?? relayStates(doc, scenario));
@@ -219,8 +222,15 @@ export function prepareTrace(doc: HarnessDocument, scenario: Scenario, options: 
 		let truncated = false;
 		const onPath = new Uint8Array(g.vertices.length);
 		const path: number[] = [];
+		// Simple paths can be exponentially many, and so can the dead ends a depth-first walk
+		// tries on a meshed harness: the walk has a step budget, and stops as truncated past it.
+		let budget = WALK_BUDGET;
 		const walk = (v: number) => {
 			if (truncated) return;
+			if (--budget < 0) {
+				truncated = true;
+				return;
+			}
 			if (v === t) {
 				if (out.length >= maxPaths) truncated = true;
 				else out.push(path.map(point));
