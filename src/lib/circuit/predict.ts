@@ -383,7 +383,9 @@ export class Base {
 		f: ReturnType<typeof factorCircuit>;
 		x: Float64Array;
 		g: Float64Array;
-		cols: Map<string, Float64Array>;
+		cols: Map<number, Float64Array>;
+		/** The last fault replayed: its translation, reused for each meter it is replayed with. */
+		last?: { changes: readonly Change[]; gClosedOf: Map<number, number>; gNow: Map<number, number>; extra: { a: number; b: number; delta: number }[]; targets: Map<number, number>; skip: Set<number>; shift: Float64Array | null };
 		/** The nodes every replay reads: relay coils and contacts, stabilizers. */
 		fixed: number[];
 		forward: (i: number) => SparseVec;
@@ -434,32 +436,12 @@ export class Base {
 		return st.scratch.fill(sc, faultNodes).y;
 	}
 
-	/**
-	 * Replays solve.ts's settling rounds on the faulted circuit, incrementally from the first
-	 * round's factorisation (relays released, stabilizer contacts closed), and says whether it
-	 * settles in the same states as this base: the same relays pulled in, each stabilizer
-	 * regulating, closed or held at the floor as here. Each round is one small Woodbury system
-	 * over the fault, the relay contacts that moved and the stabilizers whose contacts moved.
-	 */
-	sameSettledState(changes: readonly Change[], meter?: { a: number; b: number; delta: number }): boolean {
-		if (!this.c.relays.length && !this.c.stabilizers.length) return true;
-		const st = this.startState();
+	/** A fault's changes relative to the first round's circuit (as faultedCircuit builds them). */
+	private replayFault(changes: readonly Change[]) {
+		const st = this.start!;
 		const c = this.c;
 		const n = c.nodeNames.length;
 		const coils = this.coils;
-		const column = (a: number, b: number) => {
-			const key = `${a},${b}`;
-			let y = st.cols.get(key);
-			if (!y) {
-				const u = new Float64Array(n);
-				if (a >= 0) u[a] += 1;
-				if (b >= 0) u[b] -= 1;
-				y = st.f.solve(u);
-				st.cols.set(key, y);
-			}
-			return y;
-		};
-		// The faulted circuit's own elements (as faultedCircuit builds them), relative to the start.
 		const gClosedOf = new Map<number, number>();
 		const gNow = new Map<number, number>();
 		const extra: { a: number; b: number; delta: number }[] = [];
@@ -504,6 +486,39 @@ export class Base {
 				}
 			}
 		}
+		const shift = rhsUsed ? st.f.solve(rhs) : null;
+		return { changes, gClosedOf, gNow, extra, targets, skip, shift };
+	}
+
+	/**
+	 * Replays solve.ts's settling rounds on the faulted circuit, incrementally from the first
+	 * round's factorisation (relays released, stabilizer contacts closed), and says whether it
+	 * settles in the same states as this base: the same relays pulled in, each stabilizer
+	 * regulating, closed or held at the floor as here. Each round is one small Woodbury system
+	 * over the fault, the relay contacts that moved and the stabilizers whose contacts moved.
+	 */
+	sameSettledState(changes: readonly Change[], meter?: { a: number; b: number; delta: number }): boolean {
+		if (!this.c.relays.length && !this.c.stabilizers.length) return true;
+		const st = this.startState();
+		const c = this.c;
+		const n = c.nodeNames.length;
+		const coils = this.coils;
+		const column = (a: number, b: number) => {
+			const key = (a + 1) * (n + 1) + b + 1;
+			let y = st.cols.get(key);
+			if (!y) {
+				const u = new Float64Array(n);
+				if (a >= 0) u[a] += 1;
+				if (b >= 0) u[b] -= 1;
+				y = st.f.solve(u);
+				st.cols.set(key, y);
+			}
+			return y;
+		};
+		if (st.last?.changes !== changes) st.last = this.replayFault(changes);
+		const { gClosedOf, targets, skip, shift } = st.last;
+		const gNow = new Map(st.last.gNow);
+		const extra = [...st.last.extra];
 		let meterY: Float64Array | null = null;
 		if (meter) {
 			extra.push(meter);
@@ -514,7 +529,6 @@ export class Base {
 		}
 		const builtOf = (k: number) => c.elements[k];
 		const g = (k: number) => gNow.get(k) ?? st.g[k];
-		const shift = rhsUsed ? st.f.solve(rhs) : null;
 		const hat = (i: number) => (i < 0 ? 0 : st.x[i] + (shift ? shift[i] : 0));
 		const energised = new Set<string>();
 		for (const r of c.relays) if (g(r.normallyOpen) > 0) energised.add(r.part);
