@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { placeReading, type PredictionTable, type Tolerance } from './outcomes';
-import { buildPlan, checklist, expectedProbesLowerBound, leaves, pointByPointWalk, replan, type PlanNode } from './plan';
+import { ambiguityClasses } from './cover';
+import { binReadings, placeReading, type PredictionTable, type Tolerance } from './outcomes';
+import { buildPlan, checklist, expectedProbesLowerBound, huffmanExpectedLength, huffmanLowerBound, leaves, pointByPointWalk, replan, type PlanNode } from './plan';
 import { harnessTable, randomTable, rng } from './testing/tables';
 
 const dmm20V: Tolerance = { abs: 0.02, rel: 0.005 }; // ±(0.5 % + 2 counts of 10 mV), from memory (TRADE.md)
@@ -248,5 +249,84 @@ describe('replan', () => {
 		walk(r.plan.root);
 		expect([...used]).toEqual(['gauge feed']);
 		expect(() => replan(gauges, [{ probe: 'tank sender', reading: 1 }])).toThrow(/readingsTaken\[0\]\.probe names probe "tank sender"/);
+	});
+});
+
+describe('Huffman lower bound', () => {
+	// Worked by hand (the merging rule of Huffman 1952): chances 0.4, 0.3, 0.2, 0.1 with K = 2
+	// merge 0.1 + 0.2 = 0.3, then 0.3 + 0.3 = 0.6, then 0.4 + 0.6 = 1: lengths 1, 2, 3, 3 and an
+	// expected length of 0.4 + 0.6 + 0.9 + 0.3 = 1.9 = 0.3 + 0.6 + 1.
+	it('expected length of a worked binary example', () => {
+		expect(huffmanExpectedLength([0.4, 0.3, 0.2, 0.1], 2)).toBeCloseTo(1.9, 12);
+		// K = 3 on five equal chances: pad to 5 (already 5 − 1 = 4, a multiple of 2), merge three
+		// of 0.2 (0.6), then 0.2, 0.2, 0.6 → 1: lengths 1, 1, 2, 2, 2 → 1.6.
+		expect(huffmanExpectedLength([0.2, 0.2, 0.2, 0.2, 0.2], 3)).toBeCloseTo(1.6, 12);
+	});
+
+	// Against enumeration: the least Σ pᵢℓᵢ over whole lengths with Σ K^−ℓᵢ ≤ 1 (Kraft–McMillan:
+	// exactly the lengths a K-ary prefix code can have; Cover & Thomas, "Elements of Information
+	// Theory", Thm 5.2.1 and 5.5.1).
+	it('equals the best prefix code found by enumeration on 200 random small distributions', () => {
+		const random = rng(4242);
+		for (let c = 0; c < 200; c++) {
+			const n = 2 + Math.floor(random() * 5);
+			const K = 2 + Math.floor(random() * 3);
+			const p = Array.from({ length: n }, () => 0.05 + random());
+			const total = p.reduce((a, b) => a + b, 0);
+			const q = p.map((x) => x / total);
+			let best = Infinity;
+			const len = new Array(n).fill(1);
+			const walk = (i: number) => {
+				if (i === n) {
+					if (len.reduce((a, l) => a + K ** -l, 0) <= 1 + 1e-12) best = Math.min(best, len.reduce((a, l, j) => a + l * q[j], 0));
+					return;
+				}
+				for (let l = 1; l <= n; l++) {
+					len[i] = l;
+					walk(i + 1);
+				}
+			};
+			walk(0);
+			expect(huffmanExpectedLength(q, K)).toBeCloseTo(best, 9);
+		}
+	});
+
+	// Against the best plan found by enumeration (every probe at every point, all suspects read):
+	// the bound is never above it, and never below the entropy bound.
+	it('is at most the optimal plan and at least the entropy bound on 150 random small tables', () => {
+		const random = rng(99);
+		for (let c = 0; c < 150; c++) {
+			const t = randomTable(random, { suspects: 2 + Math.floor(random() * 5), probes: 1 + Math.floor(random() * 4) });
+			const n = t.suspects.length;
+			const total = t.suspects.reduce((a, s) => a + s.prior, 0);
+			const w = t.suspects.map((s) => s.prior / total);
+			const classOf = new Int32Array(n);
+			ambiguityClasses(t).forEach((cl, k) => cl.forEach((s) => (classOf[s] = k)));
+			const memo = new Map<number, number>();
+			// E(S): expected probes from point S, weighted by the absolute chance of reaching it.
+			const best = (members: number[]): number => {
+				const key = members.reduce((m, s) => m | (1 << s), 0);
+				const got = memo.get(key);
+				if (got !== undefined) return got;
+				let value = 0;
+				if (!members.every((s) => classOf[s] === classOf[members[0]])) {
+					const mass = members.reduce((a, s) => a + w[s], 0);
+					let least = Infinity;
+					t.probes.forEach((probe, p) => {
+						const { bins } = binReadings(t.readings[p], probe.tolerance, members);
+						if (bins.length < 2) return;
+						least = Math.min(least, mass + bins.reduce((a, b) => a + best(b.suspects), 0));
+					});
+					value = Number.isFinite(least) ? least : 0;
+				}
+				memo.set(key, value);
+				return value;
+			};
+			const optimal = best(t.suspects.map((_, s) => s));
+			const h = huffmanLowerBound(t);
+			expect(h.probes).toBeLessThanOrEqual(optimal + 1e-9);
+			expect(h.probes).toBeGreaterThanOrEqual(expectedProbesLowerBound(t).probes - 1e-9);
+			expect(buildPlan(t).expectedProbes).toBeGreaterThanOrEqual(h.probes - 1e-9);
+		}
 	});
 });

@@ -500,6 +500,73 @@ export function expectedProbesLowerBound(table: PredictionTable, options: Pick<P
 	return { probes: K > 1 ? h / Math.log2(K) : 0, entropyBits: h, maxOutcomes: K };
 }
 
+export type HuffmanBound = {
+	/** No probe-at-a-time plan's expected probe count is below this. */
+	probes: number;
+	/** K, as in `expectedProbesLowerBound`. */
+	maxOutcomes: number;
+	/** Number of ambiguity classes with a chance above zero. */
+	classes: number;
+};
+
+/**
+ * Expected codeword length of an optimal K-ary prefix code (Huffman 1952, "A Method for the
+ * Construction of Minimum-Redundancy Codes", Proc. IRE 40(9):1098–1101): pad with zero-chance
+ * dummies until (n − 1) is a multiple of (K − 1), then merge the K least likely repeatedly; the
+ * expected length is the sum of the merged chances.
+ */
+export function huffmanExpectedLength(chances: readonly number[], K: number): number {
+	if (!(Number.isInteger(K) && K >= 2)) throw new RangeError(`huffmanExpectedLength: K must be an integer ≥ 2, got ${K}`);
+	const w = chances.filter((x) => x > 0);
+	if (w.length <= 1) return 0;
+	while ((w.length - 1) % (K - 1) !== 0) w.push(0);
+	// n is small (ambiguity classes): a sorted array is enough.
+	w.sort((a, b) => a - b);
+	let total = 0;
+	while (w.length > 1) {
+		const merged = w.splice(0, K).reduce((a, b) => a + b, 0);
+		total += merged;
+		let i = 0;
+		while (i < w.length && w[i] < merged) i++;
+		w.splice(i, 0, merged);
+	}
+	return total;
+}
+
+/**
+ * A tighter lower bound on the expected number of probes: the expected length of an optimal
+ * K-ary Huffman code over the chances of the ambiguity classes (K and the classes as in
+ * `expectedProbesLowerBound`).
+ *
+ * Proof. Take any plan that takes one probe at a time, has at most K outcomes per probe and ends
+ * every branch inside one class. Label each probe's outcomes with distinct digits 0..K−1; the
+ * digits read from the start to a leaf form a word, and since no leaf lies on the way to another
+ * the words of the leaves form a K-ary prefix-free code. Several leaves may belong to one class
+ * c (and a suspect with no reading follows every branch, so its chance may be spread over many
+ * leaves); all that ends in class c, chance p_c, ends at leaves no shallower than c's shallowest
+ * leaf, of depth ℓ_c. So E[probes] ≥ Σ_c p_c ℓ_c. Keeping just one shallowest leaf per class
+ * still gives a prefix-free code (a subset of one), with one word per class of length ℓ_c, and no
+ * K-ary prefix code does better on average than Huffman's; hence E[probes] ≥ Huffman_K(p). The
+ * Huffman length is itself ≥ H(p)/log2 K (Shannon's bound), so this bound is never below
+ * `expectedProbesLowerBound`. Like that one it does not bound plans cut short.
+ */
+export function huffmanLowerBound(table: PredictionTable, options: Pick<PlanOptions, 'exclude' | 'weights'> = {}): HuffmanBound {
+	checkTable(table, 'huffmanLowerBound');
+	const available = availability(table, options.exclude, 'huffmanLowerBound');
+	const w = startWeights(table, options.weights, 'huffmanLowerBound');
+	const members = table.suspects.map((_, s) => s).filter((s) => w[s] > 0);
+	const sub = subTable(table, members);
+	const exclude = table.probes.filter((_, p) => !available[p]).map((p) => p.id);
+	const chances = ambiguityClasses(sub, { exclude })
+		.map((c) => c.reduce((a, i) => a + w[members[i]], 0))
+		.filter((m) => m > 0);
+	let K = 1;
+	sub.probes.forEach((p, i) => {
+		if (available[i]) K = Math.max(K, maxOutcomes(sub.readings[i], p.tolerance));
+	});
+	return { probes: K > 1 ? huffmanExpectedLength(chances, K) : 0, maxOutcomes: K, classes: chances.length };
+}
+
 export type WalkResult = {
 	expectedProbes: number;
 	expectedCost: number;

@@ -85,17 +85,31 @@ function plan(c: Circuit): Stamp {
 			return p.stamp;
 		}
 	}
-	const stamp = freshPlan(c);
+	// A circuit with elements added at the end (a fault's short, a meter) keeps the ordering of
+	// the circuit it came from: only the symbolic analysis is redone, not the minimum degree.
+	let perm: Int32Array | undefined;
+	for (const p of plans) {
+		if (p.n !== n || p.ends.length >= ends.length) continue;
+		let prefix = true;
+		for (let k = 0; k < p.ends.length && prefix; k++) prefix = p.ends[k] === ends[k];
+		if (prefix) {
+			perm = p.stamp.sym.perm;
+			break;
+		}
+	}
+	const stamp = freshPlan(c, perm);
+	// Derived plans are not kept, so the many faults of one circuit never push its own plan out.
+	if (perm) return stamp;
 	plans.unshift({ n, ends, stamp });
 	if (plans.length > PLAN_CACHE) plans.pop();
 	return stamp;
 }
 
-function freshPlan(c: Circuit): Stamp {
+function freshPlan(c: Circuit, perm?: Int32Array): Stamp {
 	const n = c.nodeNames.length;
 	const pairs: [number, number][] = c.elements.map((e) => [e.a, e.b]);
 	const pattern = symmetricPattern(n, pairs);
-	const sym = analyse(pattern);
+	const sym = analyse(pattern, perm);
 	const m = c.elements.length;
 	const aa = new Int32Array(m).fill(-1);
 	const bb = new Int32Array(m).fill(-1);
