@@ -327,6 +327,8 @@ export class Base {
 	private readonly sparseCols = new Map<string, SparseColumn>();
 	private readonly deviceIndex = new Map<number, number>();
 	private scratchFill?: ColumnScratch;
+	/** Faults solved in full on this base (fallbacks), kept while their change lists live. */
+	private readonly locals = new WeakMap<readonly Change[], Base>();
 	private denseScratch?: Float64Array;
 
 	constructor(c: Circuit, solution: Solution = solveCircuit(c)) {
@@ -651,6 +653,16 @@ export class Base {
 			this.columns.set(key, col);
 		}
 		return col;
+	}
+
+	/** The faulted circuit solved in full, as a base of its own (kept per change list, so a fault solved for its fuses is not solved again for its readings). */
+	localFor(changes: readonly Change[]): Base {
+		let b = this.locals.get(changes);
+		if (!b) {
+			b = new Base(faultedCircuit(this.c, changes));
+			this.locals.set(changes, b);
+		}
+		return b;
 	}
 
 	/** Raw response to a unit injection at node i (cached). */
@@ -982,6 +994,7 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 	const hat = (i: number) => (i < 0 ? 0 : x[i] + (shift ? shift[i] : 0) + (injectY ? inject * injectY[i] : 0));
 	const alpha = new Float64Array(m);
 	const eAlpha = new Float64Array(m);
+	let inv: Float64Array[] | null = null;
 	if (m) {
 		const mat: Float64Array[] = new Array(m);
 		const rhs = new Float64Array(m);
@@ -994,7 +1007,7 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 			mat[i] = row;
 			rhs[i] = -(hat(a) - hat(b));
 		}
-		const inv = invertOrNull(mat);
+		inv = invertOrNull(mat);
 		if (!inv) return failed('illConditioned');
 		for (let i = 0; i < m; i++) {
 			let s = 0;
@@ -1084,8 +1097,8 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 			// The solver's own Sherman–Morrison step (solve.ts): its sign says which way the
 			// contacts would move; at gMax they must not open, at the floor they must not close.
 			const colS = base.column(st.input, st.output);
-			const z = updatedColumn(colS.y, m, ca, cb, cd, cy);
-			if (!z) return failed('stateFlip');
+			// The same small system as the voltages, with this column as its right-hand side.
+			const z = updatedColumn(colS.y, m, ca, cb, cy, inv);
 			const a = value(st.input) - value(st.output);
 			const b = z(st.input) - z(st.output);
 			const cOut = value(st.output) - value(st.earth);
@@ -1109,20 +1122,15 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 	return { ok: true, at: value, gOf, errorOf };
 }
 
-/** The response to a column under the Woodbury system of the given changes (for the stabilizer step). */
-function updatedColumn(v: Float64Array, m: number, ca: Int32Array, cb: Int32Array, cd: Float64Array, cy: Float64Array[]): ((i: number) => number) | null {
-	if (!m) return (i) => (i < 0 ? 0 : v[i]);
-	const mat: Float64Array[] = new Array(m);
-	const rhs = new Float64Array(m);
+/** The response to a column under the Woodbury system of the given changes (for the stabilizer step), from that system's inverse. */
+function updatedColumn(v: Float64Array, m: number, ca: Int32Array, cb: Int32Array, cy: Float64Array[], inv: Float64Array[] | null): (i: number) => number {
+	if (!m || !inv) return (i) => (i < 0 ? 0 : v[i]);
+	const al = new Float64Array(m);
 	for (let i = 0; i < m; i++) {
-		const row = new Float64Array(m);
-		for (let j = 0; j < m; j++) row[j] = at(cy[j], ca[i]) - at(cy[j], cb[i]);
-		row[i] += 1 / cd[i];
-		mat[i] = row;
-		rhs[i] = -(at(v, ca[i]) - at(v, cb[i]));
+		let t = 0;
+		for (let k = 0; k < m; k++) t -= inv[i][k] * (at(v, ca[k]) - at(v, cb[k]));
+		al[i] = t;
 	}
-	const al = solveSmall(mat, rhs);
-	if (!al) return null;
 	return (i: number) => {
 		if (i < 0) return 0;
 		let x = v[i];
@@ -1284,7 +1292,7 @@ export function predictReadings(
 		}
 		if (!full) return;
 		// Full solve of the faulted circuit; meters are then added to it incrementally.
-		const local = new Base(faultedCircuit(c, h.changes));
+		const local = base.localFor(h.changes);
 		const lp = prepare(local, []);
 		const onLocal = metersOn(local, meters);
 		let bareEv: Evaluated | null = null;
@@ -1309,7 +1317,7 @@ export function evaluateHypothesis(base: Base, changes: readonly Change[]): Eval
 		const ev = evaluatePrepared(base, p);
 		if (ev.ok && base.sameSettledState(changes)) return { ...ev, full: false };
 	}
-	const s = solveCircuit(faultedCircuit(base.c, changes));
+	const s = base.localFor(changes).solution;
 	return { ok: true, at: (i) => s.at(i), gOf: (k) => s.g[k], full: true };
 }
 

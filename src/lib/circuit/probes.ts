@@ -11,7 +11,7 @@
  */
 import type { Circuit } from './circuit';
 import type { Region } from './faults';
-import { pulsingNodes, type ProbePoint } from './meters';
+import { probeNode, pulsingNodes, type ProbePoint } from './meters';
 import type { MeterProfile } from './meter-profiles';
 import { nodeOfTerminal } from './nets';
 import { lampResistance, type Location } from './parts';
@@ -20,6 +20,7 @@ import type { Scenario } from './scenario';
 import type { HarnessDocument, Part } from './schema';
 import type { Solution } from './solve';
 import type { Tolerance } from './outcomes';
+import { prepareTrace, type TracePoint } from './trace';
 
 export const PROBE_KINDS = ['volts', 'drop', 'ohms', 'lamp'] as const;
 export type ProbeKind = (typeof PROBE_KINDS)[number];
@@ -348,4 +349,39 @@ export function setupScenario(doc: HarnessDocument, scenario: Scenario, setup: S
 	}
 	const part = setup.slice('part-out:'.length);
 	return { ...scenario, disconnected: [...(scenario.disconnected ?? []), part] };
+}
+
+/**
+ * The order of the point-by-point walk, the way a person checks without a plan: for each marked
+ * part in turn, volts to earth at every point of its feed from the battery (its first traced
+ * feed path, battery end first, as `trace.ts` lists it), then at every point of its earth path
+ * from the part back to the earth. Only voltmeter probes to earth, each point once; points with
+ * no such probe among `specs` are passed over. Unlike every candidate probe in feed order, this
+ * leaves out drops, test lamps and ohms, which a person without a plan rarely takes in turn.
+ */
+export function feedWalkOrder(doc: HarnessDocument, scenario: Scenario, c: Circuit, specs: readonly ProbeSpec[], parts: readonly string[]): string[] {
+	const byNode = new Map<number, string>();
+	for (const s of specs) {
+		if (s.kind !== 'volts' || s.meter.kind !== 'volts' || s.meter.b !== 'earth') continue;
+		const n = probeNode(c, s.meter.a);
+		if (!byNode.has(n)) byNode.set(n, s.id);
+	}
+	const tracer = prepareTrace(doc, scenario);
+	const out: string[] = [];
+	const seen = new Set<string>();
+	const visit = (points: readonly TracePoint[]) => {
+		for (const pt of points) {
+			if (pt.type !== 'node') continue;
+			const id = byNode.get(c.nodeIndex.get(pt.node) ?? -2);
+			if (id && !seen.has(id)) {
+				seen.add(id);
+				out.push(id);
+			}
+		}
+	};
+	for (const part of parts) {
+		visit(tracer.feed(part).paths[0] ?? []);
+		visit([...(tracer.earth(part).paths[0] ?? [])].reverse());
+	}
+	return out;
 }
