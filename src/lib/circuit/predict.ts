@@ -1234,7 +1234,7 @@ function readOn(b: Base, p: Prepared, changes: readonly Change[], meter: Meter, 
 	// A test lamp loads the circuit: it too must leave the solver's settling path as it was.
 	if (meter.kind === 'lamp' && mc && !b.sameSettledState(changes, mc)) return 'flip';
 	if (!exactEnough(ev, meter, mc!.a, mc!.b, 0)) return 'inexact';
-	return readEvaluated(b.c, ev, meter);
+	return readingFrom(meter, ev.at(mc!.a), ev.at(mc!.b), 0);
 }
 
 /**
