@@ -161,6 +161,12 @@ async function main() {
 		if (!pane) throw new Error('bench: no canvas pane');
 		const cx = pane.x + pane.width / 2;
 		const cy = pane.y + pane.height / 2;
+		// BENCH_PROFILE=1: a CPU profile of the pan, the functions with the most samples printed.
+		const cdp = process.env.BENCH_PROFILE ? await context.newCDPSession(page) : null;
+		if (cdp) {
+			await cdp.send('Profiler.enable');
+			await cdp.send('Profiler.start');
+		}
 		const pan = await frames(page, async () => {
 			for (let round = 0; round < 3; round++) {
 				await page.mouse.move(cx + 300, cy + 200);
@@ -169,6 +175,20 @@ async function main() {
 				await page.mouse.up();
 			}
 		});
+		if (cdp) {
+			const { profile } = await cdp.send('Profiler.stop');
+			const self = new Map<string, number>();
+			let total = 0;
+			for (const n of profile.nodes) {
+				const hits = n.hitCount ?? 0;
+				total += hits;
+				const f = n.callFrame;
+				const key = `${f.functionName || '(anonymous)'} ${f.url.split('/').pop()}:${f.lineNumber + 1}`;
+				self.set(key, (self.get(key) ?? 0) + hits);
+			}
+			console.log('pan profile, self samples:');
+			for (const [k, v] of [...self].sort((a, b) => b[1] - a[1]).slice(0, 20)) console.log(`  ${((100 * v) / total).toFixed(1).padStart(5)} %  ${k}`);
+		}
 		console.log(`pan: median frame ${median(pan).toFixed(1)} ms, 90th percentile ${percentile(pan, 0.9).toFixed(1)} ms over ${pan.length} frames (target median ≤ 20 ms)`);
 
 		const zoom = await frames(page, async () => {
