@@ -3,7 +3,7 @@
  * person would see, for trying a plan out, for practice hunts and for checking the demo's
  * walk-through. The same probes, setups and fuse rule as diagnose.ts, over the whole harness.
  */
-import { buildCircuit } from './circuit';
+import { buildCircuit, type Circuit } from './circuit';
 import { DiagnoseError, probeReadings, settleFuses } from './diagnose';
 import { generateHypotheses, type Change, type Region } from './faults';
 import { ENTRY_DMM, type MeterProfile } from './meter-profiles';
@@ -30,10 +30,21 @@ export interface WhatIfReading {
 	reading: number;
 }
 
+export const noFault = (id: string) => `no fault "${id}" on this diagram (ids as the probe plan's suspects name them)`;
+
 function wholeHarness(doc: HarnessDocument): Region {
 	const nodes = new Set<string>();
 	for (const p of doc.parts) for (const t of p.terminals) nodes.add(nodeOfTerminal(p, t));
 	return { parts: new Set(doc.parts.map((p) => p.id)), wires: new Set(doc.wires.map((w) => w.id)), nodes };
+}
+
+/**
+ * The circuit changes of a fault named as the plan's suspects name it, with any fuse it overloads
+ * blown (as diagnose.ts does); null when the diagram has no such fault.
+ */
+export function faultChanges(c: Circuit, base: Base, faultId: string): Change[] | null {
+	const h = generateHypotheses(c).find((x) => x.id === faultId);
+	return h ? settleFuses(base, c, { changes: h.changes, label: h.label }).changes : null;
 }
 
 export function readingsIf(input: WhatIfInput): WhatIfReading[] {
@@ -49,14 +60,10 @@ export function readingsIf(input: WhatIfInput): WhatIfReading[] {
 	input.probes.forEach((id, i) => {
 		if (!byId.has(id)) issues.push({ path: `probes[${i}]`, message: `no probe "${id}" on this diagram (ids as the probe plan names them, e.g. "${all[0]?.id ?? 'volts:<part>:<terminal>'}")` });
 	});
-	let changes: Change[] = [];
-	if (input.fault) {
-		const h = generateHypotheses(c).find((x) => x.id === input.fault);
-		if (!h) issues.push({ path: 'fault', message: `no fault "${input.fault}" on this diagram (ids as the probe plan's suspects name them)` });
-		else changes = settleFuses(base, c, { changes: h.changes, label: h.label }).changes;
-	}
+	const changes = input.fault ? faultChanges(c, base, input.fault) : [];
+	if (!changes) issues.push({ path: 'fault', message: noFault(input.fault!) });
 	if (issues.length) throw new DiagnoseError(issues);
 	const specs = input.probes.map((id) => byId.get(id)!);
-	const { readings } = probeReadings(doc, scenario, c, base, [{ changes }], specs, profile);
+	const { readings } = probeReadings(doc, scenario, c, base, [{ changes: changes! }], specs, profile);
 	return specs.map((s, i) => ({ id: s.id, label: s.label, unit: s.unit, reading: Math.round(readings[i][0] * 1e6) / 1e6 }));
 }

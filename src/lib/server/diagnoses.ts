@@ -7,16 +7,15 @@ import type { User as SessionUser } from 'lucia';
 import { z } from 'zod';
 import { DiagnoseError } from '../circuit/diagnose';
 import { METER_PROFILES, MeterProfileSchema } from '../circuit/meter-profiles';
-import { checkScenario, defaultScenario } from '../circuit/scenario';
 import type { HarnessDocument } from '../circuit/schema';
 import { MARKS } from '../circuit/symptoms';
 import { basePlan, planDiagnosis, type DiagnosisJson, type DiagnosisPlan, type ReadingJson } from '../diagnosis/session';
 import type { DiagnoseResult } from '../circuit/diagnose';
 import { db } from './db';
 import { diagnoses, diagnosisReadings, diagramRevisions, users, type Diagnosis, type DiagnosisReading, type Diagram } from './db/schema';
-import { validateDocument } from './documents';
+import { documentToPlan, scenarioToPlan } from './documents';
 import { BadRequest } from './http';
-import { under, type Issue } from './issues';
+import type { Issue } from './issues';
 
 export const MarkSchema = z.object({ part: z.string().min(1), mark: z.enum(MARKS) });
 const MeterSchema = z.union([z.enum(Object.keys(METER_PROFILES) as [string, ...string[]]), MeterProfileSchema]);
@@ -108,15 +107,7 @@ export async function documentAt(diagramId: string, revision: number): Promise<H
 		.from(diagramRevisions)
 		.where(and(eq(diagramRevisions.diagramId, diagramId), eq(diagramRevisions.revision, revision)));
 	if (!row) throw new BadRequest(`Revision ${revision} of this diagram is not in its history.`, [{ path: 'revision', message: `no revision ${revision}` }]);
-	const checked = validateDocument(row.document);
-	if (!checked.ok) throw new BadRequest('The diagram has problems; fix them in the editor first.', checked.errors.map((e) => ({ path: under('document', e.path), message: e.message })));
-	return checked.doc;
-}
-
-function checkedScenario(doc: HarnessDocument, raw: unknown) {
-	const sc = checkScenario(doc, raw ?? defaultScenario(doc));
-	if (!sc.ok) throw new BadRequest('The scenario has problems.', sc.errors.map((e) => ({ path: under('scenario', e.path), message: e.message })));
-	return sc.scenario;
+	return documentToPlan(row.document);
 }
 
 // Plans before readings, per diagnosis version (marks, scenario and meter change the version;
@@ -156,7 +147,7 @@ export async function start(user: SessionUser, diagram: Diagram, input: z.output
 		throw new BadRequest(`The diagram was saved again (now revision ${diagram.revision}); start from the latest drawing.`, [{ path: 'revision', message: `revision ${input.revision} is not the latest (${diagram.revision})` }]);
 	}
 	const doc = await documentAt(diagram.id, diagram.revision);
-	const scenario = checkedScenario(doc, input.scenario);
+	const scenario = scenarioToPlan(doc, input.scenario);
 	const names = new Map(doc.parts.map((p) => [p.id, p]));
 	const title = input.title || describeMarks(input.marks.map((m) => ({ ...m, key: names.get(m.part)?.key ?? m.part, label: names.get(m.part)?.label ?? '' })));
 	const draft = { scenario, marks: input.marks, meter: input.meter };
@@ -272,7 +263,7 @@ async function writeVersioned(d: DiagnosisJson, version: number, set: Partial<ty
 
 export async function update(loaded: Loaded, input: z.output<typeof UpdateSchema>): Promise<DiagnosisJson> {
 	const next = {
-		scenario: input.scenario !== undefined ? checkedScenario(loaded.document, input.scenario) : loaded.diagnosis.scenario,
+		scenario: input.scenario !== undefined ? scenarioToPlan(loaded.document, input.scenario) : loaded.diagnosis.scenario,
 		marks: input.marks ?? loaded.diagnosis.marks,
 		meter: input.meter ?? loaded.diagnosis.meter
 	};

@@ -5,8 +5,10 @@
 // `validateDocument` and `newDocument` are the only places the server decides what a valid
 // document is; both hand over to the circuit core's schema (src/lib/circuit/schema.ts).
 // Relative import: the seed script runs outside Vite, where `$lib` does not resolve.
+import { checkScenario, defaultScenario, type Scenario } from '../circuit/scenario';
 import { emptyDocument, parseDocument, type HarnessDocument } from '../circuit/schema';
-import type { Issue } from './issues';
+import { BadRequest } from './http';
+import { under, type Issue } from './issues';
 
 /** What the database stores: any JSON object (old rows are read without trusting them). */
 export type DiagramDocument = Record<string, unknown>;
@@ -68,4 +70,18 @@ export function summarise(doc: unknown): DocumentSummary {
 		wires: list(d.wires).length,
 		kinds: [...counts.entries()].sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0]))
 	};
+}
+
+/** A stored document the circuit can be computed on, or a 400 naming its problems under "document". */
+export function documentToPlan(json: unknown): HarnessDocument {
+	const checked = validateDocument(json);
+	if (!checked.ok) throw new BadRequest('The diagram has problems; fix them in the editor first.', checked.errors.map((e) => ({ path: under('document', e.path), message: e.message })));
+	return checked.doc;
+}
+
+/** The scenario sent (the document's default when none), or a 400 naming its problems under "scenario". */
+export function scenarioToPlan(doc: HarnessDocument, raw: unknown): Scenario {
+	const sc = checkScenario(doc, raw ?? defaultScenario(doc));
+	if (!sc.ok) throw new BadRequest('The scenario has problems.', sc.errors.map((e) => ({ path: under('scenario', e.path), message: e.message })));
+	return sc.scenario;
 }

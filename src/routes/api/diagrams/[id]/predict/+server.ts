@@ -1,18 +1,17 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireDiagram } from '$lib/server/access';
-import { validateDocument } from '$lib/server/documents';
+import { documentToPlan, scenarioToPlan } from '$lib/server/documents';
 import { BadRequest, endpoint, readBody } from '$lib/server/http';
-import { under } from '$lib/server/issues';
 import { buildCircuit } from '$lib/circuit/circuit';
-import { checkScenario, defaultScenario } from '$lib/circuit/scenario';
 import { ENTRY_DMM } from '$lib/circuit/meter-profiles';
 import { lampResistance } from '$lib/circuit/parts';
 import { Base, predictReadings, type Meter } from '$lib/circuit/predict';
 import type { HarnessDocument } from '$lib/circuit/schema';
-import { DiagnoseError, settleFuses } from '$lib/circuit/diagnose';
-import { generateHypotheses, type Change } from '$lib/circuit/faults';
-import { readingsIf } from '$lib/circuit/what-if';
+import { DiagnoseError } from '$lib/circuit/diagnose';
+import type { Change } from '$lib/circuit/faults';
+import type { Scenario } from '$lib/circuit/scenario';
+import { faultChanges, noFault, readingsIf } from '$lib/circuit/what-if';
 import type { RequestHandler } from './$types';
 
 const Point = z.union([z.literal('earth'), z.literal('chassis'), z.object({ part: z.string().min(1), terminal: z.string().min(1) })]);
@@ -49,18 +48,15 @@ function checkPoint(doc: HarnessDocument, p: z.output<typeof Point>, path: strin
 export const POST: RequestHandler = endpoint(async ({ locals, params, request }) => {
 	const { diagram } = await requireDiagram(locals, params.id, 'view');
 	const input = await readBody(request, Body);
-	const checked = validateDocument(diagram.document);
-	if (!checked.ok) throw new BadRequest('The diagram has problems; fix them in the editor first.', checked.errors.map((e) => ({ path: under('document', e.path), message: e.message })));
-	const doc = checked.doc;
-	const sc = checkScenario(doc, input.scenario ?? defaultScenario(doc));
-	if (!sc.ok) throw new BadRequest('The scenario has problems.', sc.errors.map((e) => ({ path: under('scenario', e.path), message: e.message })));
-	let changes: Change[] = [];
+	const doc = documentToPlan(diagram.document);
+	const scenario = scenarioToPlan(doc, input.scenario);
 	const issues: { path: string; message: string }[] = [];
+	let changes: Change[] = [];
 	if (input.fault) {
-		const c = buildCircuit(doc, sc.scenario);
-		const h = generateHypotheses(c).find((x) => x.id === input.fault);
-		if (!h) issues.push({ path: 'fault', message: `no fault "${input.fault}" on this diagram (ids as the probe plan's suspects name them)` });
-		else changes = settleFuses(new Base(c), c, { changes: h.changes, label: h.label }).changes;
+		const c = buildCircuit(doc, scenario);
+		const found = faultChanges(c, new Base(c), input.fault);
+		if (found) changes = found;
+		else issues.push({ path: 'fault', message: noFault(input.fault) });
 	}
 	issues.push(...input.probes.flatMap((p, i) => [...checkPoint(doc, p.at, `probes[${i}].at`), ...checkPoint(doc, p.to, `probes[${i}].to`)]));
 	if (issues.length) throw new BadRequest('Some probes name points that are not in the diagram.', issues);
@@ -73,21 +69,21 @@ export const POST: RequestHandler = endpoint(async ({ locals, params, request })
 	const powered = input.probes.map((p, i) => [p, i] as const).filter(([p]) => p.kind !== 'ohms');
 	const ohms = input.probes.map((p, i) => [p, i] as const).filter(([p]) => p.kind === 'ohms');
 	const out: { id: string; reading: number | 'OL'; unit: string }[] = input.probes.map((p) => ({ id: p.id, reading: 0, unit: p.kind === 'lamp' ? '%' : p.kind === 'ohms' ? 'Ω' : 'V' }));
-	const run = (scenario: typeof sc.scenario, list: typeof powered) => {
+	const run = (setup: Scenario, list: typeof powered) => {
 		if (!list.length) return;
-		const rows = predictReadings(new Base(buildCircuit(doc, scenario)), [{ changes }], list.map(([p]) => meterOf(p)));
+		const rows = predictReadings(new Base(buildCircuit(doc, setup)), [{ changes }], list.map(([p]) => meterOf(p)));
 		list.forEach(([p, i], r) => {
 			const v = rows[r][0];
 			out[i].reading = p.kind === 'lamp' ? v * 100 : p.kind === 'ohms' && !(v <= ENTRY_DMM.ohms.overLimit) ? 'OL' : v;
 		});
 	};
-	run(sc.scenario, powered);
+	run(scenario, powered);
 	const batteries = doc.parts.filter((p) => p.kind === 'battery').map((p) => p.id);
-	run({ ...sc.scenario, engineRunning: false, disconnected: [...sc.scenario.disconnected, ...batteries] }, ohms);
+	run({ ...scenario, engineRunning: false, disconnected: [...scenario.disconnected, ...batteries] }, ohms);
 	let planned: { id: string; reading: number; unit: string }[] = [];
 	if (input.planProbes.length) {
 		try {
-			planned = readingsIf({ doc, scenario: sc.scenario, probes: input.planProbes, fault: input.fault }).map((r) => ({ id: r.id, reading: r.reading, unit: r.unit }));
+			planned = readingsIf({ doc, scenario, probes: input.planProbes, fault: input.fault }).map((r) => ({ id: r.id, reading: r.reading, unit: r.unit }));
 		} catch (e) {
 			if (e instanceof DiagnoseError) throw new BadRequest('Some probes name points that are not in the diagram.', e.issues.map((i) => ({ ...i, path: i.path.replace(/^probes/, 'planProbes') })));
 			throw e;

@@ -1,10 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireDiagram } from '$lib/server/access';
-import { validateDocument } from '$lib/server/documents';
+import { documentToPlan, scenarioToPlan } from '$lib/server/documents';
 import { BadRequest, endpoint, readBody } from '$lib/server/http';
-import { under } from '$lib/server/issues';
-import { checkScenario, defaultScenario } from '$lib/circuit/scenario';
 import { diagnose, DiagnoseError, FAULT_KINDS } from '$lib/circuit/diagnose';
 import { MARKS } from '$lib/circuit/symptoms';
 import { METER_PROFILES, MeterProfileSchema } from '$lib/circuit/meter-profiles';
@@ -29,14 +27,11 @@ const Body = z.object({
 export const POST: RequestHandler = endpoint(async ({ locals, params, request }) => {
 	const { diagram } = await requireDiagram(locals, params.id, 'view');
 	const input = await readBody(request, Body);
-	const checked = validateDocument(diagram.document);
-	if (!checked.ok) throw new BadRequest('The diagram has problems; fix them in the editor first.', checked.errors.map((e) => ({ path: under('document', e.path), message: e.message })));
-	const doc = checked.doc;
-	const sc = checkScenario(doc, input.scenario ?? defaultScenario(doc));
-	if (!sc.ok) throw new BadRequest('The scenario has problems.', sc.errors.map((e) => ({ path: under('scenario', e.path), message: e.message })));
+	const doc = documentToPlan(diagram.document);
+	const scenario = scenarioToPlan(doc, input.scenario);
 	const meter = typeof input.meter === 'string' ? METER_PROFILES[input.meter] : input.meter;
 	try {
-		const r = diagnose({ doc, scenario: sc.scenario, marks: input.marks, meter, readings: input.readings, weights: input.weights, reach: input.reach, tools: input.tools });
+		const r = diagnose({ doc, scenario, marks: input.marks, meter, readings: input.readings, weights: input.weights, reach: input.reach, tools: input.tools });
 		return json({
 			revision: diagram.revision,
 			explainedBy: r.explainedBy,
