@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { ambiguityClasses } from './cover';
 import { binReadings, placeReading, type PredictionTable, type Tolerance } from './outcomes';
-import { buildPlan, checklist, expectedProbesLowerBound, huffmanExpectedLength, huffmanLowerBound, leaves, pointByPointWalk, replan, type PlanNode } from './plan';
+import { buildPlan, checklist, expectedProbesLowerBound, huffmanExpectedLength, huffmanLowerBound, leaves, optimalExpected, pointByPointWalk, replan, type Objective, type PlanNode } from './plan';
+import { floorBound, separationLowerBound } from './plan-bounds';
 import { harnessTable, randomTable, rng } from './testing/tables';
 
 const dmm20V: Tolerance = { abs: 0.02, rel: 0.005 }; // ±(0.5 % + 2 counts of 10 mV), from memory (TRADE.md)
@@ -328,5 +329,200 @@ describe('Huffman lower bound', () => {
 			expect(h.probes).toBeGreaterThanOrEqual(expectedProbesLowerBound(t).probes - 1e-9);
 			expect(buildPlan(t).expectedProbes).toBeGreaterThanOrEqual(h.probes - 1e-9);
 		}
+	});
+});
+
+/**
+ * Least expected cost of any complete plan, by enumerating every probe at every point: bins from
+ * outcomes.ts binReadings, unread suspects at weight ÷ K into every branch (as plan.ts
+ * describes), a point with no probe of two or more bins a leaf. Absolute weights in, so the
+ * root's value is the expectation.
+ */
+function enumeratedOptimum(t: PredictionTable, objective: Objective): number {
+	const memo = new Map<string, number>();
+	const total = t.suspects.reduce((a, s) => a + s.prior, 0);
+	const rec = (members: number[], w: number[]): number => {
+		const key = members.map((s, i) => `${s}:${w[i]}`).join(',');
+		const got = memo.get(key);
+		if (got !== undefined) return got;
+		const mass = w.reduce((a, b) => a + b, 0);
+		const weightOf = new Map(members.map((s, i) => [s, w[i]]));
+		let least = Infinity;
+		t.probes.forEach((probe, p) => {
+			const { bins, unread } = binReadings(t.readings[p], probe.tolerance, members);
+			if (bins.length < 2) return;
+			let v = (objective === 'probes' ? 1 : probe.cost) * mass;
+			for (const b of bins) {
+				const next = [...b.suspects, ...unread].sort((x, y) => x - y);
+				v += rec(
+					next,
+					next.map((s) => (unread.includes(s) ? weightOf.get(s)! / bins.length : weightOf.get(s)!))
+				);
+			}
+			least = Math.min(least, v);
+		});
+		const value = Number.isFinite(least) ? least : 0;
+		memo.set(key, value);
+		return value;
+	};
+	return rec(
+		t.suspects.map((_, s) => s),
+		t.suspects.map((s) => s.prior / total)
+	);
+}
+
+describe('exact search and lookahead', () => {
+	// The exact search (plan-search.ts) against the enumeration above, on both objectives, with
+	// and without undefined readings.
+	it('the exact optimum equals the enumerated optimum on 150 random tables of up to 7 suspects', () => {
+		const random = rng(1976);
+		for (let c = 0; c < 150; c++) {
+			const t = randomTable(random, { suspects: 2 + Math.floor(random() * 6), probes: 1 + Math.floor(random() * 5), nullRate: c % 4 === 3 ? 0.15 : 0, wholeCosts: c % 5 === 0 });
+			for (const objective of ['probes', 'cost'] as const) {
+				const want = enumeratedOptimum(t, objective);
+				const got = optimalExpected(t, { objective });
+				expect(got.proven).toBe(true);
+				expect(got.value).toBeCloseTo(want, 9);
+				expect(got.lower).toBeCloseTo(want, 9);
+			}
+		}
+	});
+
+	// Bound ≤ optimum ≤ plan; on tables no larger than the exact search's limit the plan is the
+	// optimum; everywhere the lookahead plan is no worse than the one-step plan on the figure it
+	// was built for (the rollout's cost-improvement property: plan-search.ts header).
+	it('bound ≤ optimum ≤ plan, and the lookahead plan is never worse than the one-step plan, on 150 random tables', () => {
+		const random = rng(1997);
+		for (let c = 0; c < 150; c++) {
+			const withNulls = c % 3 === 2;
+			const n = 2 + Math.floor(random() * 15);
+			const t = randomTable(random, { suspects: n, probes: 1 + Math.floor(random() * 8), nullRate: withNulls ? 0.15 : 0, wholeCosts: c % 4 === 0 });
+			const huffman = huffmanLowerBound(t).probes;
+			const separation = separationLowerBound(t);
+			for (const objective of ['probes', 'cost'] as const) {
+				const figure = (p: ReturnType<typeof buildPlan>) => (objective === 'probes' ? p.expectedProbes : p.expectedCost);
+				const opt = optimalExpected(t, { objective });
+				expect(opt.proven).toBe(true);
+				const oneStep = buildPlan(t, { objective, lookahead: false, maxDepth: 100 });
+				// Small limits so that exact points, rollout points and one-step points all occur.
+				const mixed = buildPlan(t, { objective, lookahead: { exactUpTo: 4, rolloutUpTo: 9, candidates: 3 }, maxDepth: 100 });
+				const full = buildPlan(t, { objective, maxDepth: 100 });
+				for (const p of [oneStep, mixed, full]) {
+					expect(p.unresolvedMass).toBe(0);
+					expect(figure(p)).toBeGreaterThanOrEqual(opt.value - 1e-9);
+				}
+				expect(figure(mixed)).toBeLessThanOrEqual(figure(oneStep) + 1e-9);
+				expect(figure(full)).toBeLessThanOrEqual(figure(oneStep) + 1e-9);
+				if (n <= 12) expect(figure(full)).toBeCloseTo(opt.value, 9);
+				if (objective === 'probes') {
+					expect(huffman).toBeLessThanOrEqual(opt.value + 1e-9);
+					expect(separation.probes).toBeLessThanOrEqual(opt.value + 1e-9);
+				} else expect(separation.cost).toBeLessThanOrEqual(opt.value + 1e-9);
+				// Read as predicted, every suspect still ends on a leaf that holds it.
+				if (!withNulls) t.suspects.forEach((_, s) => expect(follow(t, full.root, s).suspects).toContain(s));
+			}
+		}
+	});
+
+	it('keeps the hand-worked choices: the four-way probe at cost 1.5, the halving pair at cost 3', () => {
+		// Worked above: at cost 1.5 one Q4 reading (cost 1.5) beats two halving probes (cost 2);
+		// at cost 3 the halving pair (cost 2) wins. Counting probes, Q4 wins at any cost (1 < 2).
+		expect(buildPlan(fourSuspects(1.5)).expectedCost).toBeCloseTo(1.5, 12);
+		expect(buildPlan(fourSuspects(3)).expectedCost).toBeCloseTo(2, 12);
+		const byProbes = buildPlan(fourSuspects(3), { objective: 'probes' });
+		expect(byProbes.root.kind === 'probe' && fourSuspects(3).probes[byProbes.root.probe].id).toBe('Q4');
+		expect(byProbes.expectedProbes).toBeCloseTo(1, 12);
+		expect(byProbes.expectedCost).toBeCloseTo(3, 12);
+		expect(() => buildPlan(fourSuspects(3), { objective: 'time' as Objective })).toThrow(/objective must be "cost" or "probes"/);
+	});
+
+	it('beats the one-step rule where the most informative probe leaves an awkward rest (worked by hand)', () => {
+		// Six equally likely suspects. "first" reads B C F 0 V, A E 6 V, D 12 V (groups of 3, 2, 1:
+		// H = 1/2 + 1/3·log2 3 + 1/6·log2 6 = 1.459 bits); "second" reads A 0 V, C D E F 6 V, B 12 V
+		// (1, 4, 1: H = 1/3·log2 6 + 2/3·log2 1.5 = 1.252 bits). C and F read alike on both.
+		// One-step: "first" (more bits), then "second" on B C F and on A E: 1 + 5/6 = 1.833 probes.
+		// Better: "second" first finds A or B at once, then "first" on C D E F: 1 + 4/6 = 1.667.
+		// Huffman bound, K = 3, classes A B D E (1/6 each) and C F (1/3): merge 1/6·3 = 1/2, then
+		// 1/6 + 1/3 + 1/2 = 1: 1.5 probes.
+		const t: PredictionTable = {
+			suspects: ['A', 'B', 'C', 'D', 'E', 'F'].map((id) => ({ id, prior: 1 })),
+			probes: ['first', 'second'].map((id) => ({ id, cost: 1, tolerance: dmm20V })),
+			readings: [
+				[6, 0, 0, 12, 6, 0],
+				[0, 12, 6, 6, 6, 6]
+			]
+		};
+		expect(buildPlan(t, { lookahead: false }).expectedProbes).toBeCloseTo(11 / 6, 12);
+		const plan = buildPlan(t);
+		expect(plan.root.kind === 'probe' && t.probes[plan.root.probe].id).toBe('second');
+		expect(plan.expectedProbes).toBeCloseTo(10 / 6, 12);
+		expect(optimalExpected(t, { objective: 'probes' }).value).toBeCloseTo(10 / 6, 12);
+		expect(enumeratedOptimum(t, 'probes')).toBeCloseTo(10 / 6, 12);
+		expect(huffmanLowerBound(t).probes).toBeCloseTo(1.5, 12);
+	});
+});
+
+describe('separation bound', () => {
+	// Worked by hand: five equally likely suspects, each told apart from all the others by its
+	// own probe only (0 V for it, 12 V for the rest). Each needs one probe (its own): Σ w d = 1.
+	// Huffman, K = 2, five chances of 1/5: merges 2/5, 2/5, 3/5, 1 → 2.4. Any plan is a chain
+	// (each probe finds one suspect): depths 1, 2, 3, 4, 4 → 2.8, the optimum.
+	const chain: PredictionTable = {
+		suspects: ['a', 'b', 'c', 'd', 'e'].map((id) => ({ id, prior: 1 })),
+		probes: ['a', 'b', 'c', 'd', 'e'].map((id) => ({ id: `isolates ${id}`, cost: 1, tolerance: dmm20V })),
+		readings: [0, 1, 2, 3, 4].map((k) => [0, 1, 2, 3, 4].map((s) => (s === k ? 0 : 12)))
+	};
+	it('lies between the Huffman bound and the optimum on a worked chain', () => {
+		const b = separationLowerBound(chain);
+		expect(b.separationProbes).toBeCloseTo(1, 12);
+		expect(b.huffman).toBeCloseTo(2.4, 12);
+		expect(b.probes).toBeGreaterThanOrEqual(2.4 - 1e-12);
+		expect(b.probes).toBeLessThanOrEqual(2.8 + 1e-12);
+		expect(enumeratedOptimum(chain, 'probes')).toBeCloseTo(2.8, 12);
+		expect(optimalExpected(chain, { objective: 'probes' }).value).toBeCloseTo(2.8, 12);
+	});
+
+	// Worked by hand: a (chance 1/2), b and c (1/4 each). "sees b" reads b 0 V, a and c 12 V;
+	// "sees c" reads c 0 V, a and b 12 V. b needs one probe ("sees b" tells it from both), so
+	// does c; a needs both (each tells it from one of them): Σ w d = 1/2·2 + 1/4 + 1/4 = 1.5,
+	// as is Huffman on 1/2, 1/4, 1/4. With the floors, lengths (2, ≥1, ≥1) must meet Kraft:
+	// (2, 1, 1) gives 1/4 + 1/2 + 1/2 > 1, so the least is (2, 1, 2) or (2, 2, 1): 1.75; the
+	// Lagrangian reaches it at λ = 1 (a: min over ℓ ≥ 2 of ℓ/2 + 2^−ℓ = 1.25; b, c: min over
+	// ℓ ≥ 1 of ℓ/4 + 2^−ℓ = 0.75 each; 1.25 + 1.5 − 1 = 1.75). The optimum: "sees b", then
+	// "sees c" on a and c: 1/4·1 + 3/4·2 = 1.75. The bound is tight here.
+	it('counts a suspect that needs two probes at two, and meets Kraft with the floors (worked by hand)', () => {
+		const t: PredictionTable = {
+			suspects: [
+				{ id: 'a', prior: 2 },
+				{ id: 'b', prior: 1 },
+				{ id: 'c', prior: 1 }
+			],
+			probes: [
+				{ id: 'sees b', cost: 1, tolerance: dmm20V },
+				{ id: 'sees c', cost: 2, tolerance: dmm20V }
+			],
+			readings: [
+				[12, 0, 12],
+				[12, 12, 0]
+			]
+		};
+		const b = separationLowerBound(t);
+		expect(b.separationProbes).toBeCloseTo(1.5, 12);
+		expect(b.huffman).toBeCloseTo(1.5, 12);
+		expect(b.probes).toBeCloseTo(1.75, 6);
+		expect(enumeratedOptimum(t, 'probes')).toBeCloseTo(1.75, 12);
+		// Costs 1 and 2: a needs both (3), b "sees b" (1), c "sees c" (2): 1/2·3 + 1/4 + 1/4·2 = 2.25.
+		// The cheapest plan: "sees b" (1) then "sees c" (2) on a, c: 1 + 3/4·2 = 2.5.
+		expect(b.separationCost).toBeCloseTo(2.25, 12);
+		expect(enumeratedOptimum(t, 'cost')).toBeCloseTo(2.5, 12);
+		expect(b.cost).toBeLessThanOrEqual(2.5 + 1e-12);
+	});
+
+	it('the Lagrangian bound of the floors (worked by hand)', () => {
+		// No floors, chances 1/2, 1/4, 1/4, K = 2: at λ = 1, min ℓ/2 + 2^−ℓ = 1 and min ℓ/4 + 2^−ℓ
+		// = 0.75 twice, less 1: 1.5, the Kraft optimum (lengths 1, 2, 2).
+		expect(floorBound([[{ w: 0.5, d: 0 }], [{ w: 0.25, d: 0 }], [{ w: 0.25, d: 0 }]], 2)).toBeCloseTo(1.5, 6);
+		// Floors 3 and 3 on two halves: lengths (3, 3) meet Kraft (1/8 + 1/8 ≤ 1): 3.
+		expect(floorBound([[{ w: 0.5, d: 3 }], [{ w: 0.5, d: 3 }]], 2)).toBeCloseTo(3, 9);
 	});
 });

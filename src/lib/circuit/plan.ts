@@ -2,13 +2,17 @@
 // it costs on average, and the yardsticks the benchmark compares it with.
 //
 // At each step (a set of remaining suspects with their chances, the priors renormalised) the
-// next probe is the one with the most expected information per unit of cost: the entropy of
-// the suspects' distribution minus its expected entropy after reading the probe's outcome bin,
-// divided by the probe's cost (a greedy, one-step-lookahead rule; not optimal in general —
-// finding the cheapest decision tree is NP-hard, Hyafil & Rivest 1976, "Constructing optimal
-// binary decision trees is NP-complete", Inf. Process. Lett. 5(1):15–17). Bins are worked out
-// again over the suspects still in play at each step, which can be finer than the table-wide
-// bins (outcomes.ts: tolerance chains break when suspects drop out).
+// next probe is chosen by plan-search.ts: where few suspects are left, the probe that starts
+// the cheapest tree (an exact search); where a few dozen are, a rollout that finishes each
+// outcome with the rule below and keeps the probe of least total (never worse than the rule
+// alone); above that, the one-step rule: the most expected information per unit of cost (the
+// entropy of the suspects' distribution minus its expected entropy after reading the probe's
+// outcome bin, divided by the probe's cost). Finding the cheapest decision tree is NP-hard in
+// general (Hyafil & Rivest 1976, "Constructing optimal binary decision trees is NP-complete",
+// Inf. Process. Lett. 5(1):15–17), hence the limits. The cost is the probes' reach cost
+// (`objective: 'cost'`, the default) or one per probe (`'probes'`). Bins are worked out again
+// over the suspects still in play at each step, which can be finer than the table-wide bins
+// (outcomes.ts: tolerance chains break when suspects drop out).
 //
 // A suspect with no defined reading on the chosen probe cannot be ruled out by it: it goes on
 // into every branch, and is taken to be equally likely to show any of the K bins (weight ÷ K
@@ -19,13 +23,15 @@
 // apart any more ("cannot be told apart with a meter: replace or inspect"). Depth and size are
 // bounded; branches cut short are "unresolved" and are planned again from real readings.
 import { ambiguityClasses } from './cover';
+import { huffmanExpectedLength } from './huffman';
+import { PlanSearch, type Objective, type SearchLimits } from './plan-search';
+import { prepare, type State } from './plan-split';
 import {
 	binReadings,
 	checkTable,
 	consistent,
 	formatRange,
 	maxOutcomes,
-	toleranceAt,
 	type OutcomeBin,
 	type PredictionTable,
 	type ReadingRange
@@ -40,7 +46,14 @@ export type PlanOptions = {
 	maxDepth?: number;
 	/** Most steps in the whole plan (default 2000); the likeliest branches are planned first. */
 	maxSteps?: number;
+	/** What the plan keeps low: the expected reach cost of its probes (default) or their expected number. */
+	objective?: Objective;
+	/** Limits of the lookahead (plan-search.ts); false for the one-step rule alone. */
+	lookahead?: SearchLimits | false;
 };
+
+export { huffmanExpectedLength };
+export type { Objective, SearchLimits };
 
 type NodeBase = {
 	/** Suspect indices still in play here. */
@@ -90,9 +103,11 @@ export type Plan = {
 	expectedCost: number;
 	/** Chance of ending on an unresolved leaf (0 for a complete plan). */
 	unresolvedMass: number;
+	/** What the plan was built to keep low. */
+	objective: Objective;
+	/** The lookahead's work (suspect × probe visits), and whether its budget ran out. */
+	lookahead: { work: number; cut: boolean } | null;
 };
-
-const LN2 = Math.log(2);
 
 function availability(table: PredictionTable, exclude: readonly string[] | undefined, where: string): boolean[] {
 	const available = table.probes.map(() => true);
@@ -115,125 +130,9 @@ function startWeights(table: PredictionTable, weights: readonly number[] | undef
 	return w.map((x) => x / total);
 }
 
-/** Per-probe precomputation: acceptance intervals and each suspect's rank by low end. */
-type Prepared = { low: Float64Array[]; high: Float64Array[]; rank: Int32Array[]; byRank: Int32Array[] };
-
-function prepare(table: PredictionTable): Prepared {
-	const n = table.suspects.length;
-	const low: Float64Array[] = [];
-	const high: Float64Array[] = [];
-	const rank: Int32Array[] = [];
-	const byRank: Int32Array[] = [];
-	table.probes.forEach((probe, p) => {
-		const lo = new Float64Array(n);
-		const hi = new Float64Array(n);
-		const defined: number[] = [];
-		for (let s = 0; s < n; s++) {
-			const r = table.readings[p][s];
-			if (r === null) continue;
-			const t = toleranceAt(probe.tolerance, r);
-			lo[s] = r - t;
-			hi[s] = r + t;
-			defined.push(s);
-		}
-		defined.sort((a, b) => lo[a] - lo[b] || a - b);
-		const rk = new Int32Array(n).fill(-1);
-		defined.forEach((s, i) => (rk[s] = i));
-		low.push(lo);
-		high.push(hi);
-		rank.push(rk);
-		byRank.push(Int32Array.from(defined));
-	});
-	return { low, high, rank, byRank };
-}
-
-const xlogx = (x: number): number => (x > 0 ? x * Math.log(x) : 0);
-
-/** Entropy (nats) of weights with total m and Σ w·ln w = s. */
-const entropyOf = (m: number, s: number): number => (m > 0 ? Math.log(m) - s / m : 0);
-
-/** Per-point sums shared by every probe scored there. */
-type Point = { members: number[]; w: Float64Array; wl: Float64Array; mass: number; sAll: number; buf: Int32Array; inside: Uint8Array };
-
-function point(members: number[], w: Float64Array, buf: Int32Array): Point {
-	const wl = new Float64Array(w.length);
-	const inside = new Uint8Array(w.length);
-	let mass = 0;
-	let sAll = 0;
-	for (const s of members) {
-		wl[s] = xlogx(w[s]);
-		mass += w[s];
-		sAll += wl[s];
-		inside[s] = 1;
-	}
-	return { members, w, wl, mass, sAll, buf, inside };
-}
-
 /**
- * Expected entropy drop (bits) from reading probe p at a point, and the number of bins there;
- * fewer than 2 bins when the probe splits nothing.
- */
-function score(prep: Prepared, p: number, at: Point): { gain: number; bins: number } {
-	const { members, w, wl, mass, sAll, buf } = at;
-	const rank = prep.rank[p];
-	let nullMass = 0;
-	let nullS = 0;
-	let k = 0;
-	for (let i = 0; i < members.length; i++) {
-		const s = members[i];
-		const r = rank[s];
-		if (r < 0) {
-			nullMass += w[s];
-			nullS += wl[s];
-		} else buf[k++] = r;
-	}
-	const order = prep.byRank[p];
-	// Members in order of their interval's low end: sort their ranks, or for a large point
-	// pick them out of the probe's whole order, whichever is less work.
-	let sorted: Int32Array;
-	if (k * 8 > order.length) {
-		k = 0;
-		for (let r = 0; r < order.length; r++) if (at.inside[order[r]]) buf[k++] = r;
-		sorted = buf.subarray(0, k);
-	} else sorted = buf.subarray(0, k).sort();
-	const lo = prep.low[p];
-	const hi = prep.high[p];
-	const binMass: number[] = [];
-	const binS: number[] = [];
-	let end = -Infinity;
-	let bm = 0;
-	let bs = 0;
-	for (let i = 0; i < k; i++) {
-		const s = order[sorted[i]];
-		if (i > 0 && lo[s] > end) {
-			binMass.push(bm);
-			binS.push(bs);
-			bm = 0;
-			bs = 0;
-		}
-		if (hi[s] > end || i === 0) end = i === 0 ? hi[s] : Math.max(end, hi[s]);
-		bm += w[s];
-		bs += wl[s];
-	}
-	if (k > 0) {
-		binMass.push(bm);
-		binS.push(bs);
-	}
-	const K = binMass.length;
-	if (K < 2) return { gain: 0, bins: K };
-	// An unread suspect goes into every branch at weight ÷ K: Σ (w/K)·ln(w/K) = (S − W ln K)/K.
-	const nullPart = (nullS - nullMass * Math.log(K)) / K;
-	let after = 0;
-	for (let b = 0; b < K; b++) {
-		const m = binMass[b] + nullMass / K;
-		after += (m / mass) * entropyOf(m, binS[b] + nullPart);
-	}
-	return { gain: Math.max(0, entropyOf(mass, sAll) - after) / LN2, bins: K };
-}
-
-/**
- * Builds the plan: a decision tree picking, at each step, the probe of most expected
- * information per unit cost.
+ * Builds the plan: a decision tree whose every step takes the probe plan-search.ts chooses
+ * (see the file header).
  *
  * @example
  * const plan = buildPlan(table);
@@ -243,16 +142,18 @@ export function buildPlan(table: PredictionTable, options: PlanOptions = {}): Pl
 	checkTable(table, 'buildPlan');
 	const maxDepth = options.maxDepth ?? 30;
 	const maxSteps = options.maxSteps ?? 2000;
+	const objective = options.objective ?? 'cost';
+	if (objective !== 'cost' && objective !== 'probes') throw new Error(`buildPlan: objective must be "cost" or "probes", got ${JSON.stringify(objective)}`);
 	const available = availability(table, options.exclude, 'buildPlan');
 	const start = startWeights(table, options.weights, 'buildPlan');
 	const prep = prepare(table);
 	const probes = table.probes.map((_, p) => p).filter((p) => available[p]);
-	const buf = new Int32Array(table.suspects.length);
+	const search = new PlanSearch(table, prep, probes, objective, options.lookahead || {});
+	const pick = (s: State) => (options.lookahead === false ? search.greedyPick(s, false) : search.choose(s));
 
-	// Weights are absolute chances of (suspect, reaching this point), indexed by suspect.
-	type Pending = { members: number[]; w: Float64Array; mass: number; depth: number; spent: number; place: (n: PlanNode) => void; seq: number };
+	// Weights are absolute chances of (suspect, reaching this point), in the order of `members`.
+	type Pending = State & { depth: number; spent: number; place: (n: PlanNode) => void; seq: number };
 	const heap: Pending[] = [];
-	const massOf = (members: number[], w: Float64Array): number => members.reduce((m, s) => m + w[s], 0);
 	// Max-heap on mass, first come first served among equals (keeps the plan deterministic).
 	const before = (a: Pending, b: Pending): boolean => a.mass > b.mass || (a.mass === b.mass && a.seq < b.seq);
 	const push = (x: Pending): void => {
@@ -286,8 +187,8 @@ export function buildPlan(table: PredictionTable, options: PlanOptions = {}): Pl
 	let root: PlanNode | null = null;
 	let seq = 0;
 	const members0 = table.suspects.map((_, s) => s).filter((s) => start[s] > 0);
-	const w0 = Float64Array.from(start);
-	push({ members: members0, w: w0, mass: massOf(members0, w0), depth: 0, spent: 0, place: (n) => (root = n), seq: seq++ });
+	const w0 = Float64Array.from(members0, (s) => start[s]);
+	push({ members: members0, weights: w0, mass: w0.reduce((a, b) => a + b, 0), depth: 0, spent: 0, place: (n) => (root = n), seq: seq++ });
 	let steps = 0;
 	while (heap.length > 0) {
 		const at = pop();
@@ -297,58 +198,43 @@ export function buildPlan(table: PredictionTable, options: PlanOptions = {}): Pl
 			at.place({ ...base, kind: 'found', suspect: at.members[0] });
 			continue;
 		}
-		let best = -1;
-		let bestGain = 0;
-		let bestScore = -Infinity;
-		const here = point(at.members, at.w, buf);
-		for (const p of probes) {
-			const { gain, bins } = score(prep, p, here);
-			if (bins < 2) continue;
-			const c = table.probes[p].cost;
-			const sc = gain / c;
-			// Most information per cost; then more information; then cheaper; then table order.
-			if (sc > bestScore + 1e-12 || (Math.abs(sc - bestScore) <= 1e-12 && (gain > bestGain + 1e-12 || (Math.abs(gain - bestGain) <= 1e-12 && c < table.probes[best].cost)))) {
-				best = p;
-				bestGain = gain;
-				bestScore = sc;
-			}
-		}
-		if (best < 0) {
+		// The depth and size limits are checked before the lookahead, which is the costly part.
+		const limited = at.depth >= maxDepth || steps >= maxSteps;
+		const chosen = limited ? search.greedyPick(at, false) : pick(at);
+		if (!chosen) {
 			at.place({ ...base, kind: 'ambiguous' });
 			continue;
 		}
-		if (at.depth >= maxDepth || steps >= maxSteps) {
+		if (limited) {
 			at.place({ ...base, kind: 'unresolved', reason: at.depth >= maxDepth ? 'depth limit' : 'size limit' });
 			continue;
 		}
+		const best = chosen.probe;
 		steps++;
 		const { bins, unread } = binReadings(table.readings[best], table.probes[best].tolerance, at.members);
-		const K = bins.length;
+		const kids = search.split(at, best);
+		if (kids.length !== bins.length) throw new Error(`buildPlan: internal error: ${kids.length} outcomes against ${bins.length} bins on probe "${table.probes[best].id}"`);
 		const step: PlanStep = {
 			...base,
 			kind: 'probe',
 			probe: best,
-			chances: at.members.map((s) => at.w[s] / mass),
-			gain: bestGain,
+			chances: Array.from(at.weights, (x) => x / mass),
+			gain: chosen.gain,
 			outcomes: [],
 			unread
 		};
-		for (const bin of bins) {
-			const members = [...bin.suspects, ...unread].sort((a, b) => a - b);
-			const w = new Float64Array(table.suspects.length);
-			for (const s of bin.suspects) w[s] = at.w[s];
-			for (const s of unread) w[s] = at.w[s] / K;
+		bins.forEach((bin, b) => {
 			const outcome: PlanOutcome = { bin, chance: 0, next: null as unknown as PlanNode };
-			const childMass = massOf(members, w);
-			const child: Pending = { members, w, mass: childMass, depth: at.depth + 1, spent: at.spent + table.probes[best].cost, place: (n) => (outcome.next = n), seq: seq++ };
-			outcome.chance = childMass / mass;
+			const k = kids[b];
+			const child: Pending = { ...k, depth: at.depth + 1, spent: at.spent + table.probes[best].cost, place: (n) => (outcome.next = n), seq: seq++ };
+			outcome.chance = k.mass / mass;
 			step.outcomes.push(outcome);
 			push(child);
-		}
+		});
 		at.place(step);
 	}
 	const tree = root as unknown as PlanNode;
-	return { root: tree, steps, ...expectedProbes(tree) };
+	return { root: tree, steps, ...expectedProbes(tree), objective, lookahead: options.lookahead === false ? null : { work: search.work, cut: search.cut } };
 }
 
 /**
@@ -510,30 +396,6 @@ export type HuffmanBound = {
 };
 
 /**
- * Expected codeword length of an optimal K-ary prefix code (Huffman 1952, "A Method for the
- * Construction of Minimum-Redundancy Codes", Proc. IRE 40(9):1098–1101): pad with zero-chance
- * dummies until (n − 1) is a multiple of (K − 1), then merge the K least likely repeatedly; the
- * expected length is the sum of the merged chances.
- */
-export function huffmanExpectedLength(chances: readonly number[], K: number): number {
-	if (!(Number.isInteger(K) && K >= 2)) throw new RangeError(`huffmanExpectedLength: K must be an integer ≥ 2, got ${K}`);
-	const w = chances.filter((x) => x > 0);
-	if (w.length <= 1) return 0;
-	while ((w.length - 1) % (K - 1) !== 0) w.push(0);
-	// n is small (ambiguity classes): a sorted array is enough.
-	w.sort((a, b) => a - b);
-	let total = 0;
-	while (w.length > 1) {
-		const merged = w.splice(0, K).reduce((a, b) => a + b, 0);
-		total += merged;
-		let i = 0;
-		while (i < w.length && w[i] < merged) i++;
-		w.splice(i, 0, merged);
-	}
-	return total;
-}
-
-/**
  * A tighter lower bound on the expected number of probes: the expected length of an optimal
  * K-ary Huffman code over the chances of the ambiguity classes (K and the classes as in
  * `expectedProbesLowerBound`).
@@ -565,6 +427,32 @@ export function huffmanLowerBound(table: PredictionTable, options: Pick<PlanOpti
 		if (available[i]) K = Math.max(K, maxOutcomes(sub.readings[i], p.tolerance));
 	});
 	return { probes: K > 1 ? huffmanExpectedLength(chances, K) : 0, maxOutcomes: K, classes: chances.length };
+}
+
+export type Optimum = {
+	/** Expected cost (or probes) of the best plan found; the optimum when `proven`. */
+	value: number;
+	/** Proven lower bound on the optimum (equal to `value` when proven). */
+	lower: number;
+	proven: boolean;
+	/** Search work (suspect × probe visits). */
+	work: number;
+};
+
+/**
+ * The least expected cost (objective "cost") or number of probes ("probes") of any complete
+ * plan, by the exact search of plan-search.ts over every point, within a work budget (default
+ * 10⁸ suspect × probe visits); past it, the best plan found and a proven lower bound.
+ */
+export function optimalExpected(table: PredictionTable, options: Pick<PlanOptions, 'exclude' | 'weights' | 'objective'> & { budget?: number } = {}): Optimum {
+	checkTable(table, 'optimalExpected');
+	const available = availability(table, options.exclude, 'optimalExpected');
+	const start = startWeights(table, options.weights, 'optimalExpected');
+	const probes = table.probes.map((_, p) => p).filter((p) => available[p]);
+	const search = new PlanSearch(table, prepare(table), probes, options.objective ?? 'cost', { exactUpTo: Infinity, budget: options.budget ?? 1e8 });
+	const members = table.suspects.map((_, s) => s).filter((s) => start[s] > 0);
+	const r = search.optimum({ members, weights: Float64Array.from(members, (s) => start[s]), mass: 1 });
+	return { ...r, work: search.work };
 }
 
 export type WalkResult = {
