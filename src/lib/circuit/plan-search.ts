@@ -371,7 +371,9 @@ export class PlanSearch {
 		if (first) options.sort((a, b) => round(a.bound) - round(b.bound) || b.sc - a.sc || a.p - b.p);
 		const order = first ? [first, ...options] : options;
 		let complete = true;
-		for (const o of order) {
+		// Proven lower bound of each option (its value once followed to the end).
+		const proven = order.map((o) => o.bound);
+		for (const [n, o] of order.entries()) {
 			const cap = Math.min(limit, e.hi);
 			if (o.bound >= cap) continue;
 			if (this.work >= this.budget) {
@@ -395,6 +397,7 @@ export class PlanSearch {
 					break;
 				}
 			}
+			proven[n] = known;
 			if (better(hi, e.hi)) {
 				e.hi = hi;
 				e.choice = o.p;
@@ -405,7 +408,9 @@ export class PlanSearch {
 			if (e.hi < limit) e.lo = e.hi;
 			else e.lo = Math.max(e.lo, limit);
 		} else {
-			this.cut = true;
+			// Cut short: every tree starts with one of the options, so the least of their proven
+			// bounds still bounds s.
+			e.lo = Math.max(e.lo, Math.min(e.hi, ...proven));
 			return this.settle(s, key, e);
 		}
 		return e;
