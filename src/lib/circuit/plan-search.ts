@@ -113,7 +113,13 @@ export class PlanSearch {
 	 * whether the work goes on the lookahead's budget (not when the plan itself takes the pick).
 	 */
 	greedyPick(s: State, counted = true): Pick | null {
+		return this.scored(s, counted).pick;
+	}
+
+	/** Every probe that splits s with its gain, and the one-step rule's pick among them. */
+	private scored(s: State, counted: boolean): { pick: Pick | null; ranked: { p: number; sc: number; gain: number }[] } {
 		const at = point(s.members, s.weights, this.sc);
+		const ranked: { p: number; sc: number; gain: number }[] = [];
 		let best = -1;
 		let bestGain = 0;
 		let bestScore = -Infinity;
@@ -122,6 +128,7 @@ export class PlanSearch {
 			if (bins < 2) continue;
 			const c = this.cost[p];
 			const sc = gain / c;
+			ranked.push({ p, sc: round(sc), gain });
 			const tc = this.table.probes[p].cost;
 			// Most information per cost; then more information; then cheaper; then table order.
 			if (
@@ -135,7 +142,7 @@ export class PlanSearch {
 		}
 		if (counted) this.work += s.members.length * this.probes.length;
 		release(at);
-		return best < 0 ? null : { probe: best, gain: bestGain };
+		return { pick: best < 0 ? null : { probe: best, gain: bestGain }, ranked };
 	}
 
 	/** The points probe p leads to from s. */
@@ -191,16 +198,8 @@ export class PlanSearch {
 	}
 
 	private rollout(s: State): Pick | null {
-		const at = point(s.members, s.weights, this.sc);
-		const ranked: { p: number; sc: number; gain: number }[] = [];
-		for (const p of this.probes) {
-			const { gain, bins } = score(this.prep, p, at);
-			if (bins >= 2) ranked.push({ p, sc: round(gain / this.cost[p]), gain });
-		}
-		release(at);
-		this.work += s.members.length * this.probes.length;
-		if (!ranked.length) return null;
-		const first = this.greedyPick(s)!;
+		const { pick: first, ranked } = this.scored(s, true);
+		if (!first) return null;
 		ranked.sort((a, b) => b.sc - a.sc || a.p - b.p);
 		const tried = [first.probe, ...ranked.map((r) => r.p).filter((p) => p !== first.probe)].slice(0, this.candidates);
 		let best = first;
