@@ -47,7 +47,7 @@ export type Reading = number;
 export interface FallbackCount {
 	/** Hypotheses whose fault changes a relay or stabilizer state: solved in full. */
 	stateFlips: number;
-	/** Hypotheses opening an element that leaves a part of the circuit hanging on the leakage, or whose incremental readings could carry more rounding than `ROUNDING_LIMIT`. */
+	/** Hypotheses opening an element that leaves a part of the circuit hanging on the leakage (and not as a dead island, see `islandOf`): solved in full. */
 	illConditioned: number;
 	/** Hypotheses releasing a regulating stabilizer (stuck open or welded). */
 	stabilizerReleased: number;
@@ -57,11 +57,15 @@ export interface FallbackCount {
 	roundoff: number;
 	/** Hypotheses solved incrementally. */
 	incremental: number;
+	/** Hypotheses opening an element that cuts off a dead island, done incrementally on the rest (`islandOf`); counted in `incremental` too. */
+	deadIslands: number;
+	/** Hypothesis–meter pairs read on the fault solved in full: incrementally they could carry more rounding than `ROUNDING_LIMIT`, or they touch a dead island. */
+	onSolvedFault: number;
 	/** Hypothesis–meter pairs whose meter current was too large for the state bound (`PairKit.theta`): every relay and stabilizer checked one by one. */
 	checkedOneByOne: number;
 }
 
-export const emptyFallbacks = (): FallbackCount => ({ stateFlips: 0, illConditioned: 0, stabilizerReleased: 0, meterFlips: 0, roundoff: 0, incremental: 0, checkedOneByOne: 0 });
+export const emptyFallbacks = (): FallbackCount => ({ stateFlips: 0, illConditioned: 0, stabilizerReleased: 0, meterFlips: 0, roundoff: 0, incremental: 0, deadIslands: 0, onSolvedFault: 0, checkedOneByOne: 0 });
 
 const at = (v: Float64Array, i: number) => (i < 0 ? 0 : v[i]);
 
@@ -395,6 +399,26 @@ export class Base {
 	}
 
 	private readonly contacts: Set<number>;
+	private incident?: number[][];
+
+	/** Elements at each node (built on first use). */
+	incidence(): number[][] {
+		if (!this.incident) {
+			const inc: number[][] = Array.from({ length: this.c.nodeNames.length }, () => []);
+			this.c.elements.forEach((e, j) => {
+				if (e.a >= 0) inc[e.a].push(j);
+				if (e.b >= 0 && e.b !== e.a) inc[e.b].push(j);
+			});
+			this.incident = inc;
+		}
+		return this.incident;
+	}
+
+	/** Nodes a source drives. */
+	get sourceNodes(): number[] {
+		return (this.sourceList ??= this.c.sources.flatMap((s) => [s.a, s.b]).filter((v) => v >= 0));
+	}
+	private sourceList?: number[];
 
 	/**
 	 * Must solve.ts's settling be replayed to trust an incremental state check of these changes
@@ -876,8 +900,19 @@ interface Prepared {
 	gNew: Map<number, number>;
 	/** Set-points of non-regulating stabilizers changed by the fault. */
 	idleTargets: Map<number, number>;
+	/** The dead island an opening cuts off, when that is how it is done (`islandOf`): meters touching it are read on the solved fault. */
+	island?: Island;
 	/** Why this cannot be done incrementally, if so. */
 	fallback?: 'illConditioned' | 'stabilizerReleased';
+}
+
+/** See `islandOf`. */
+interface Island {
+	/** The opened element's live end (−1: the reference). */
+	r: number;
+	nodes: Set<number>;
+	/** The conductance change at r that stands for the cut. */
+	sigma: number;
 }
 
 /** The state of one hypothesis (with or without a meter) on a base, or why it needs a full solve. */
@@ -980,16 +1015,153 @@ function prepare(base: Base, changes: readonly Change[]): Prepared {
 		prepared.shift = shift;
 		prepared.shiftC = shiftC;
 	}
-	for (const col of prepared.cols) {
-		if (col.delta >= 0) continue;
+	const cancels = (col: Prepared['cols'][number]) => {
+		if (col.delta >= 0) return false;
 		const self = at(col.col.y, col.a) - at(col.col.y, col.b);
 		const d = 1 / col.delta;
-		if (Math.abs(d + self) < CANCELLATION * Math.abs(d)) {
-			prepared.fallback = 'illConditioned';
-			return prepared;
+		return Math.abs(d + self) < CANCELLATION * Math.abs(d);
+	};
+	for (const col of prepared.cols) {
+		if (!cancels(col)) continue;
+		// One opened element cutting off a dead island: the rest of the circuit sees a small,
+		// well-conditioned change at the element's live end instead (see `islandOf`).
+		const island = prepared.cols.length === 1 && !prepared.shift && col.element >= 0 && !base.replayNeeded(changes) ? islandOf(base, col.element) : null;
+		if (island) {
+			prepared.island = island;
+			prepared.cols = [];
+			prepared.faultNodes = [];
+			if (island.r >= 0) {
+				const cut = { a: island.r, b: -1, delta: island.sigma, element: -1, col: base.column(island.r, -1) };
+				if (!cancels(cut)) {
+					prepared.cols.push(cut);
+					prepared.faultNodes.push(island.r, -1);
+					return prepared;
+				}
+			} else return prepared;
 		}
+		prepared.island = undefined;
+		prepared.fallback = 'illConditioned';
+		return prepared;
 	}
 	return prepared;
+}
+
+/** Largest island handled without a full solve (nodes), and the smallest conductance inside it (S). */
+const ISLAND_NODES = 64;
+const ISLAND_G = 1e-4;
+
+/**
+ * A dead island cut off by opening element k: the nodes on one side of k that, without k, reach
+ * neither the reference nor the rest of the circuit through any conductance (only the leakage
+ * gmin of each node), hold no source, no relay and no stabilizer. Then the faulted matrix is
+ * block diagonal: the island reads 0 V (no source in it), and the rest R sees
+ * A − gₖeᵣeᵣᵀ. With the healthy G = [[A, B], [Bᵀ, C]], (G⁻¹)_RR = (A − BC⁻¹Bᵀ)⁻¹ (Schur
+ * complement) and BC⁻¹Bᵀ = gₖ²φ eᵣeᵣᵀ, φ = (C⁻¹)_ff = 1/(gₖ + y), y the island's admittance from
+ * its node f to the reference; so the rest's matrix is (G⁻¹)_RR⁻¹ + σeᵣeᵣᵀ with
+ * σ = −gₖy/(gₖ + y): a rank-one change at r of the healthy inverse's entries, with no
+ * cancelling denominator. y = 1/ψ with ψ = fᵀ(L + gmin I)⁻¹f, L the island's Laplacian; split f
+ * into its mean and a zero-mean part: ψ = 1/(n·gmin) + t, t = (L⁺(eᶠ − 1/n))ᶠ, found by grounding
+ * f in L (a small dense solve). Dropping gmin in t changes it by a factor within gmin/λ₂ of 1,
+ * λ₂ ≥ 4·ISLAND_G/n² (Mohar 1991, "Eigenvalues, diameter and mean distance in graphs"), and t
+ * itself is at most n/ISLAND_G against 1/(n·gmin): far below rounding of ψ.
+ */
+function islandOf(base: Base, k: number): Island | null {
+	const c = base.c;
+	const e = c.elements[k];
+	const gk = base.g[k];
+	if (!(gk > 0)) return null;
+	const incident = base.incidence();
+	const walk = (from: number): number[] | null => {
+		if (from < 0) return null;
+		const seen = new Set<number>([from]);
+		const stack = [from];
+		while (stack.length) {
+			const v = stack.pop()!;
+			for (const j of incident[v]) {
+				if (j === k || !(base.g[j] > 0)) continue;
+				if (base.g[j] < ISLAND_G) return null;
+				const el = c.elements[j];
+				const w = el.a === v ? el.b : el.a;
+				if (w < 0) return null;
+				if (!seen.has(w)) {
+					if (seen.size >= ISLAND_NODES) return null;
+					seen.add(w);
+					stack.push(w);
+				}
+			}
+		}
+		return [...seen];
+	};
+	let nodes = walk(e.b);
+	let f = e.b;
+	let r = e.a;
+	if (!nodes) {
+		nodes = walk(e.a);
+		f = e.a;
+		r = e.b;
+	}
+	if (!nodes) return null;
+	const set = new Set(nodes);
+	if (r >= 0 && set.has(r)) return null;
+	if (base.deviceNodes.some((d) => set.has(d)) || base.sourceNodes.some((d) => set.has(d))) return null;
+	for (const rl of c.relays) for (const q of [rl.normallyOpen, rl.normallyClosed]) if (set.has(c.elements[q].a) || set.has(c.elements[q].b)) return null;
+	// Grounded Laplacian of the island at f: solve L w = −1/n on the other nodes.
+	const n = nodes.length;
+	const others = nodes.filter((v) => v !== f);
+	const idx = new Map(others.map((v, i) => [v, i]));
+	const m = others.length;
+	const L = new Float64Array(m * m);
+	for (const v of nodes) {
+		for (const j of incident[v]) {
+			if (j === k || !(base.g[j] > 0)) continue;
+			const el = c.elements[j];
+			if (el.a !== v) continue; // each element once, from its a end
+			const g = base.g[j];
+			const p = idx.get(el.a);
+			const q = idx.get(el.b);
+			if (p !== undefined) L[p * m + p] += g;
+			if (q !== undefined) L[q * m + q] += g;
+			if (p !== undefined && q !== undefined) {
+				L[p * m + q] -= g;
+				L[q * m + p] -= g;
+			}
+		}
+	}
+	const w = new Float64Array(m).fill(-1 / n);
+	if (m && !choleskySolve(L, w, m)) return null;
+	let sum = 0;
+	for (let i = 0; i < m; i++) sum += w[i];
+	const t = -sum / n;
+	const psi = 1 / (n * c.gmin) + t;
+	const y = 1 / psi;
+	return { r, nodes: set, sigma: (-gk * y) / (gk + y) };
+}
+
+/** Solve S x = b in place for a small dense SPD matrix (Cholesky); false when not positive definite. */
+function choleskySolve(S: Float64Array, b: Float64Array, m: number): boolean {
+	for (let j = 0; j < m; j++) {
+		let d = S[j * m + j];
+		for (let q = 0; q < j; q++) d -= S[j * m + q] * S[j * m + q];
+		if (!(d > 0)) return false;
+		d = Math.sqrt(d);
+		S[j * m + j] = d;
+		for (let i = j + 1; i < m; i++) {
+			let v = S[i * m + j];
+			for (let q = 0; q < j; q++) v -= S[i * m + q] * S[j * m + q];
+			S[i * m + j] = v / d;
+		}
+	}
+	for (let i = 0; i < m; i++) {
+		let v = b[i];
+		for (let q = 0; q < i; q++) v -= S[i * m + q] * b[q];
+		b[i] = v / S[i * m + i];
+	}
+	for (let i = m - 1; i >= 0; i--) {
+		let v = b[i];
+		for (let q = i + 1; q < m; q++) v -= S[q * m + i] * b[q];
+		b[i] = v / S[i * m + i];
+	}
+	return true;
 }
 
 /** Unit roundoff of doubles, with a safety factor for the sums in the small system (Higham 2002, §3.1). */
@@ -1332,9 +1504,6 @@ interface PairKit {
 	/** x̂ across each fault pair, and |x̂(aᵢ)| + |x̂(bᵢ)|. */
 	hatF: Float64Array;
 	hatAbsF: Float64Array;
-	/** G⁻¹e at each fault pair's nodes (null at the reference): the meter's column there, by symmetry. */
-	colA: (Float64Array | null)[];
-	colB: (Float64Array | null)[];
 	shift: Float64Array | null;
 	theta: number;
 	/** Test lamps need solve.ts's settling replayed (`Base.replayNeeded`). */
@@ -1408,8 +1577,6 @@ function pairKit(base: Base, p: Prepared, ev: Evaluated, changes: readonly Chang
 		blockMag: new Float64Array(k * k),
 		hatF: new Float64Array(k),
 		hatAbsF: new Float64Array(k),
-		colA: p.cols.map((q) => (q.a >= 0 ? base.nodeColumn(q.a) : null)),
-		colB: p.cols.map((q) => (q.b >= 0 ? base.nodeColumn(q.b) : null)),
 		shift: p.shift,
 		theta: 0,
 		replay: base.replayNeeded(changes),
@@ -1483,8 +1650,8 @@ function pairKit(base: Base, p: Prepared, ev: Evaluated, changes: readonly Chang
 /**
  * A voltmeter's or test lamp's reading under a kit's hypothesis: the same small system,
  * refinement and rounding bound as `evaluatePrepared`, without its allocations, with the meter's
- * column read at the fault's nodes from G⁻¹e there (symmetry of G⁻¹) and at its own nodes from
- * `ends`. Returns 0 with the reading in `out[0]`, 1 when rounding could exceed the limit, 2 when
+ * column read at the fault's nodes from the fault's own columns (symmetry of G⁻¹) and at its own
+ * nodes from `ends`. Returns 0 with the reading in `out[0]`, 1 when rounding could exceed the limit, 2 when
  * the pair must be read the long way (the state bound failed, or a lamp needs the replay).
  */
 function kitReading(base: Base, kit: PairKit, meter: Meter, a: number, b: number, delta: number, e: MeterEnds, out: Float64Array): 0 | 1 | 2 {
@@ -1495,46 +1662,26 @@ function kitReading(base: Base, kit: PairKit, meter: Meter, a: number, b: number
 	const shift = kit.shift;
 	const ya = e.ya;
 	const yb = e.yb;
-	const dense = e.dense ? base.column(a, b).y : null;
 	const hatA = a < 0 ? 0 : x[a] + (shift ? shift[a] : 0);
 	const hatB = b < 0 ? 0 : x[b] + (shift ? shift[b] : 0);
-	// The meter's column at each fault pair: G⁻¹ symmetric, so eᵢᵀG⁻¹uₘ = uₘᵀG⁻¹eᵢ.
+	// The meter's column at each fault pair: G⁻¹ is symmetric (no stabilizer regulating), so
+	// uᵢᵀG⁻¹uₘ = uₘᵀG⁻¹uᵢ, the fault's own column read at the meter's nodes.
 	for (let i = 0; i < k; i++) {
-		let v = 0;
-		let mg = 0;
-		for (let side = 0; side < 2; side++) {
-			const f = side ? kit.fb[i] : kit.fa[i];
-			if (f < 0) continue;
-			let fv: number;
-			let fm: number;
-			if (dense) {
-				fv = dense[f];
-				fm = Math.abs(fv);
-			} else if (f === a) {
-				fv = ya;
-				fm = Math.abs(ya);
-			} else if (f === b) {
-				fv = yb;
-				fm = Math.abs(yb);
-			} else {
-				const r = side ? kit.colB[i]! : kit.colA[i]!;
-				const ra = a >= 0 ? r[a] : 0;
-				const rb = b >= 0 ? r[b] : 0;
-				fv = ra - rb;
-				fm = Math.abs(ra) + Math.abs(rb);
-			}
-			v += side ? -fv : fv;
-			mg += fm;
-		}
-		cm[i] = v;
-		cmMag[i] = mg;
+		const y = ys[i];
+		const mg = mags[i];
+		const yia = a >= 0 ? y[a] : 0;
+		const yib = b >= 0 ? y[b] : 0;
+		cm[i] = yia - yib;
+		const ma = a >= 0 ? (mg ? mg[a] : Math.abs(yia)) : 0;
+		const mb = b >= 0 ? (mg ? mg[b] : Math.abs(yib)) : 0;
+		cmMag[i] = ma + mb;
 	}
 	for (let i = 0; i < k; i++) {
 		for (let j = 0; j < k; j++) mat[i * m + j] = kit.block[i * k + j];
 		mat[i * m + k] = cm[i];
 		rhs[i] = -kit.hatF[i];
 	}
-	for (let j = 0; j < k; j++) mat[k * m + j] = at(ys[j], a) - at(ys[j], b);
+	for (let j = 0; j < k; j++) mat[k * m + j] = cm[j];
 	mat[k * m + k] = ya - yb + 1 / delta;
 	rhs[k] = -(hatA - hatB);
 	// invertFlat overwrites its input: invert a copy, keep the assembled system for the refinement.
@@ -1556,7 +1703,6 @@ function kitReading(base: Base, kit: PairKit, meter: Meter, a: number, b: number
 		for (let q = 0; q < m; q++) s += inv[i * m + q] * res[q];
 		alpha[i] += s;
 	}
-	const magAt = (j: number, i: number) => (i < 0 ? 0 : mags[j] ? mags[j]![i] : Math.abs(ys[j][i]));
 	for (let i = 0; i < k; i++) {
 		let s = kit.hatAbsF[i] + Math.abs(alpha[i] * kit.invDelta[i]);
 		for (let j = 0; j < k; j++) s += kit.blockMag[i * k + j] * Math.abs(alpha[j]);
@@ -1565,7 +1711,7 @@ function kitReading(base: Base, kit: PairKit, meter: Meter, a: number, b: number
 	}
 	{
 		let s = Math.abs(hatA) + Math.abs(hatB) + Math.abs(alpha[k] / delta);
-		for (let j = 0; j < k; j++) s += (magAt(j, a) + magAt(j, b)) * Math.abs(alpha[j]);
+		for (let j = 0; j < k; j++) s += cmMag[j] * Math.abs(alpha[j]);
 		s += (Math.abs(ya) + Math.abs(yb)) * Math.abs(alpha[k]);
 		load[k] = s;
 	}
@@ -1579,12 +1725,10 @@ function kitReading(base: Base, kit: PairKit, meter: Meter, a: number, b: number
 	let em = Math.abs(hatA) + Math.abs(hatB);
 	let ed = 0;
 	for (let j = 0; j < k; j++) {
-		const yja = at(ys[j], a);
-		const yjb = at(ys[j], b);
-		va += alpha[j] * yja;
-		vb += alpha[j] * yjb;
-		em += Math.abs(alpha[j]) * (magAt(j, a) + magAt(j, b));
-		ed += eAlpha[j] * Math.abs(yja - yjb);
+		if (a >= 0) va += alpha[j] * ys[j][a];
+		if (b >= 0) vb += alpha[j] * ys[j][b];
+		em += Math.abs(alpha[j]) * cmMag[j];
+		ed += eAlpha[j] * Math.abs(cm[j]);
 	}
 	if (a >= 0) va += alpha[k] * ya;
 	if (b >= 0) vb += alpha[k] * yb;
@@ -1639,6 +1783,7 @@ export function predictReadings(
 	const got = new Float64Array(meters.length);
 	const one = new Float64Array(1);
 	const flipped: number[] = [];
+	const later: number[] = [];
 	/** One meter on a base under a prepared hypothesis: through its kit when it has one, else the long way. */
 	const read = (b: Base, kit: PairKit | null, p: Prepared, changes: readonly Change[], mi: number, mc: MeterOn | undefined, bare: () => Evaluated): Reading | 'flip' | 'inexact' => {
 		const meter = meters[mi];
@@ -1665,45 +1810,69 @@ export function predictReadings(
 			} else {
 				const kit = solveEach ? null : pairKit(base, p, bare(), h.changes);
 				flipped.length = 0;
-				let inexact = false;
-				for (let mi = 0; mi < meters.length && !inexact; mi++) {
+				later.length = 0;
+				for (let mi = 0; mi < meters.length; mi++) {
+					// A part's current is read on the solved fault: a part hanging on the leakage carries
+					// currents of the leakage's size, differences of nearly equal voltages, and the
+					// island's rank-one change agrees with a full solve on them only to about 1e-9.
+					if (p.island && (meters[mi].kind === 'current' || touchesIsland(c, meters[mi], onBase[mi], p.island.nodes))) {
+						const mc = onBase[mi];
+						const dead = (v: number) => v < 0 || p.island!.nodes.has(v);
+						// Both ends on the dead island (or one on the reference): 0 V, no current.
+						if (mc && mc.inject === 0 && dead(mc.a) && dead(mc.b)) got[mi] = 0;
+						else later.push(mi);
+						continue;
+					}
 					const r = read(base, kit, p, h.changes, mi, onBase[mi], bare);
-					if (r === 'inexact') inexact = true;
+					if (r === 'inexact') later.push(mi);
 					else if (r === 'flip') flipped.push(mi);
 					else got[mi] = r;
 				}
-				if (!inexact) {
-					fallbacks.incremental++;
-					for (let mi = 0; mi < meters.length; mi++) out[mi][hi] = got[mi];
-					for (const mi of flipped) {
-						fallbacks.meterFlips++;
-						out[mi][hi] = fullReading(c, h.changes, meters[mi]);
-					}
-					return;
+				fallbacks.incremental++;
+				if (p.island) fallbacks.deadIslands++;
+				for (let mi = 0; mi < meters.length; mi++) out[mi][hi] = got[mi];
+				for (const mi of flipped) {
+					fallbacks.meterFlips++;
+					out[mi][hi] = fullReading(c, h.changes, meters[mi]);
 				}
-				fallbacks.illConditioned++;
-				full = true;
+				fallbacks.onSolvedFault += later.length;
+				if (later.length) onSolved(h.changes, hi, later);
+				return;
 			}
 		}
-		if (!full) return;
-		// Full solve of the faulted circuit; meters are then added to it incrementally.
-		const local = base.localFor(h.changes);
+		if (full) onSolved(h.changes, hi, null);
+	});
+	return out;
+
+	/** Meters (all, or the listed ones) read on the faulted circuit solved in full; meters are then added to it incrementally. */
+	function onSolved(changes: readonly Change[], hi: number, only: readonly number[] | null) {
+		const local = base.localFor(changes);
 		const lp = prepare(local, []);
 		const onLocal = metersOn(local, meters, solveEach);
 		let bareEv: Evaluated | null = null;
 		const bare = () => (bareEv ??= evaluatePrepared(local, lp));
 		const kit = solveEach || !bare().ok ? null : pairKit(local, lp, bare(), []);
-		meters.forEach((meter, mi) => {
+		const each = (mi: number) => {
 			const r = read(local, kit, lp, [], mi, onLocal[mi], bare);
 			if (typeof r === 'number') out[mi][hi] = r;
 			else {
 				if (r === 'flip') fallbacks.meterFlips++;
 				else fallbacks.roundoff++;
-				out[mi][hi] = fullReading(c, h.changes, meter);
+				out[mi][hi] = fullReading(c, changes, meters[mi]);
 			}
-		});
-	});
-	return out;
+		};
+		if (only) only.forEach(each);
+		else for (let mi = 0; mi < meters.length; mi++) each(mi);
+	}
+}
+
+/** Does a meter touch a dead island (either of its nodes, or the element whose current it reads)? */
+function touchesIsland(c: Circuit, meter: Meter, mc: MeterOn | undefined, nodes: Set<number>): boolean {
+	if (meter.kind === 'current') {
+		const e = c.elements[meter.element];
+		return nodes.has(e.a) || nodes.has(e.b);
+	}
+	return !!mc && (nodes.has(mc.a) || nodes.has(mc.b));
 }
 
 export interface PredictOptions {
@@ -1718,7 +1887,7 @@ export interface PredictOptions {
 /** One hypothesis's state on a base without a meter (for fuse checks and part currents), solving in full when needed. */
 export function evaluateHypothesis(base: Base, changes: readonly Change[]): Evaluated & { full: boolean } {
 	const p = prepare(base, changes);
-	if (!p.fallback) {
+	if (!p.fallback && !p.island) {
 		const ev = evaluatePrepared(base, p);
 		if (ev.ok && (!base.replayNeeded(changes) || base.sameSettledState(changes))) return { ...ev, full: false };
 	}

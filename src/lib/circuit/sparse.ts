@@ -310,21 +310,24 @@ export function factorize(sym: Symbolic, values: Float64Array, pivotFloor = 0): 
 		return out;
 	};
 	const scratch = new Float64Array(n);
+	const pathBuf = new Int32Array(n);
 	const unitForward = (i: number) => {
-		const path: number[] = [];
-		for (let k = pinv[i]; k !== -1; k = parent[k]) path.push(k);
+		let len = 0;
+		for (let k = pinv[i]; k !== -1; k = parent[k]) pathBuf[len++] = k;
 		scratch[pinv[i]] = 1;
-		for (const j of path) {
+		for (let q = 0; q < len; q++) {
+			const j = pathBuf[q];
 			const xj = scratch[j];
 			if (xj === 0) continue;
 			for (let p = lp[j]; p < lp[j + 1]; p++) scratch[li[p]] -= lx[p] * xj;
 		}
-		const idx = Int32Array.from(path);
-		const val = new Float64Array(path.length);
-		path.forEach((k, q) => {
+		const idx = pathBuf.slice(0, len);
+		const val = new Float64Array(len);
+		for (let q = 0; q < len; q++) {
+			const k = idx[q];
 			val[q] = scratch[k] / Math.sqrt(d[k]);
 			scratch[k] = 0;
-		});
+		}
 		return { idx, val };
 	};
 	return { n, solve, nnzL: sym.nnzL, raisedPivots: raised, unitForward };
