@@ -48,19 +48,11 @@ function meterNodes(c: ReturnType<typeof buildCircuit>, m: Meter): [number, numb
 /** Relative difference of two readings with the floor of predict.spec.ts (1 V, full lamp brightness). */
 const relDiff = (x: number, y: number) => Math.abs(x - y) / Math.max(Math.abs(x), Math.abs(y), 1);
 
-/** An even spread of about `count` of `n` indices, mixing the probe kinds (candidates come volts, lamp, volts, lamp, …, then drops). */
-function spread(n: number, stride: number): number[] {
-	const out: number[] = [];
-	for (let i = 0; i < n; i++) if ((Math.imul(i + 1, 2654435761) >>> 0) % stride === 0) out.push(i);
-	return out;
-}
-
 export async function timing(): Promise<void> {
-	// At 1,600 parts the incremental path is timed on a spread of one candidate probe in `stride`
-	// (all kinds mixed) and its time scaled up by the stride (conservative: the per-suspect work
-	// does not grow with the probes, yet is scaled too); the baselines on `baselineSample`
-	// suspects spread evenly, on the same probes, scaled to all suspects.
-	for (const [size, marked, suspects, baselineSample, stride] of [[400, 2, 100, 12, 1], [1600, 6, 400, 8, 8]] as const) {
+	// Every suspect × every candidate probe is timed incrementally. The two full re-solve baselines
+	// are timed on `fullSample` and `fastSample` suspects spread evenly, on every probe, and scaled
+	// to all suspects; the ideal-reading lower bound on `idealSample`.
+	for (const [size, marked, suspects, fullSample, fastSample, idealSample] of [[400, 2, 100, 12, 20, 100], [1600, 6, 400, 3, 12, 60]] as const) {
 		const { doc, scenario } = generateHarness(4040 + size, { parts: size, crossLinks: 0.05, floating: 0.02 });
 		const c = buildCircuit(doc, scenario);
 		let t = now();
@@ -75,14 +67,13 @@ export async function timing(): Promise<void> {
 		const step = Math.max(1, all.length / suspects);
 		const hyps = Array.from({ length: Math.min(suspects, all.length) }, (_, i) => all[Math.floor(i * step)]);
 		const allSpecs = candidateProbes(doc, scenario, c, base.solution, region, { profile: ENTRY_DMM, tools: ['volts', 'lamp', 'drop'] });
-		const specs = spread(allSpecs.length, stride).map((i) => allSpecs[i]);
+		const specs = allSpecs;
 		const meters = specs.map((s) => s.meter);
 		const lamps = meters.filter((m) => m.kind === 'lamp').length;
 		const fb = emptyFallbacks();
 		t = now();
 		const rows = predictReadings(base, hyps, meters, fb);
-		const timedMs = now() - t + baseMs;
-		const incMs = timedMs * stride;
+		const incMs = now() - t + baseMs;
 		// Full re-solve per hypothesis, like for like: for each suspect, its faulted circuit built
 		// and solved on its own (solveCircuit: factorised, relays and stabilizers settled; only the
 		// ordering of the healthy circuit's cached plan is reused, no numbers), then every probe read
@@ -96,9 +87,8 @@ export async function timing(): Promise<void> {
 		// factors) and the relays checked by the same state bound as the incremental path.
 		// Both are `predictReadings` on a base built from the faulted circuit, with the no-fault
 		// hypothesis only. They must agree with the incremental readings within 1e-9 relative.
-		const sample = Math.min(baselineSample, hyps.length);
-		const picks = Array.from({ length: sample }, (_, i) => Math.floor((i * hyps.length) / sample));
-		const baseline = (solveEachMeter: boolean) => {
+		const spread = (count: number) => Array.from({ length: Math.min(count, hyps.length) }, (_, i) => Math.floor((i * hyps.length) / Math.min(count, hyps.length)));
+		const baseline = (solveEachMeter: boolean, picks: number[]) => {
 			let ms = 0;
 			let worst = 0;
 			for (const hi of picks) {
@@ -109,22 +99,23 @@ export async function timing(): Promise<void> {
 				for (let mi = 0; mi < meters.length; mi++) worst = Math.max(worst, relDiff(got[mi][0], rows[mi][hi]));
 			}
 			if (!(worst <= 1e-9)) throw new Error(`faults bench: a full re-solve per hypothesis differs from the incremental readings by ${worst.toExponential(2)} relative (${size} parts)`);
-			return { perHyp: ms / sample, totalMs: (ms / sample) * hyps.length * stride, worst };
+			return { sample: picks.length, perHyp: ms / picks.length, totalMs: (ms / picks.length) * hyps.length, worst };
 		};
-		const full = baseline(true);
-		const fast = baseline(false);
+		const full = baseline(true, spread(fullSample));
+		const fast = baseline(false, spread(fastSample));
 		// The old lower bound: one solve per suspect and every probe's nodes read from it, ideal
 		// meters (no load, no settling with the meter): less than any method computing the same
 		// readings must do, so the ratio against it only says what a non-incremental method
 		// could at best cost.
 		const nodes = allSpecs.map((s) => meterNodes(c, s.meter));
 		let sink = 0;
+		const idealPicks = spread(idealSample);
 		t = now();
-		for (const hi of picks) {
+		for (const hi of idealPicks) {
 			const s = solveCircuit(faultedCircuit(c, hyps[hi].changes));
 			for (const [a, b] of nodes) sink += s.at(a) - s.at(b);
 		}
-		const idealPer = (now() - t) / sample;
+		const idealPer = (now() - t) / idealPicks.length;
 		const idealMs = idealPer * hyps.length;
 		void sink;
 		const table: PredictionTable = {
@@ -139,21 +130,20 @@ export async function timing(): Promise<void> {
 		const plan = buildPlan(table);
 		const planMs = now() - t;
 		const sec = (ms: number) => (ms / 1000).toFixed(2);
-		const scaled = stride > 1 ? ` (${sec(timedMs)} s timed on ${meters.length} probes spread 1 in ${stride}, ×${stride})` : '';
 		console.log(
-			`${size} parts (${c.nodeNames.length} nodes): ${hyps.length} suspects × ${allSpecs.length} probes (${lamps} of the ${meters.length} timed are test lamps); incremental ${stride > 1 ? '≈ ' : ''}${sec(incMs)} s${scaled} (${((timedMs * 1000) / (hyps.length * meters.length)).toFixed(2)} µs a pair)`
+			`${size} parts (${c.nodeNames.length} nodes): ${hyps.length} suspects × ${allSpecs.length} probes (${lamps} test lamps), every pair timed; incremental ${sec(incMs)} s (${((incMs * 1000) / (hyps.length * meters.length)).toFixed(2)} µs a pair)`
 		);
 		console.log(
-			`  full re-solve per hypothesis, same readings (own factorisation, one solve per probe, states checked at every relay and stabilizer) ≈ ${sec(full.totalMs)} s (${full.perHyp.toFixed(1)} ms a suspect on the timed probes, ${sample} suspects sampled, max difference ${full.worst.toExponential(1)}) → ratio ${(full.totalMs / incMs).toFixed(2)}× (target ≥ 10× at 1,600 parts)`
+			`  full re-solve per hypothesis, same readings (own factorisation, one solve per probe, states checked at every relay and stabilizer) ≈ ${sec(full.totalMs)} s (${full.perHyp.toFixed(1)} ms a suspect, ${full.sample} suspects sampled, max difference ${full.worst.toExponential(1)}) → ratio ${(full.totalMs / incMs).toFixed(2)}× (target ≥ 10× at 1,600 parts)`
 		);
 		console.log(
-			`  same, with inverse entries and the state bound on its own factors ≈ ${sec(fast.totalMs)} s (${fast.perHyp.toFixed(1)} ms a suspect, max difference ${fast.worst.toExponential(1)}) → ratio ${(fast.totalMs / incMs).toFixed(2)}×`
+			`  same, with inverse entries and the state bound on its own factors ≈ ${sec(fast.totalMs)} s (${fast.perHyp.toFixed(1)} ms a suspect, ${fast.sample} sampled, max difference ${fast.worst.toExponential(1)}) → ratio ${(fast.totalMs / incMs).toFixed(2)}×`
 		);
 		console.log(
-			`  lower bound on any non-incremental method: one solve per suspect, ideal readings (no meter load, no settling) of all ${allSpecs.length} probes read from it ≈ ${sec(idealMs)} s (${idealPer.toFixed(1)} ms a suspect) → ratio ${(idealMs / (timedMs * stride)).toFixed(2)}×`
+			`  lower bound on any non-incremental method: one solve per suspect, ideal readings (no meter load, no settling) of all ${allSpecs.length} probes read from it ≈ ${sec(idealMs)} s (${idealPer.toFixed(1)} ms a suspect, ${idealPicks.length} sampled) → ratio ${(idealMs / incMs).toFixed(2)}×`
 		);
 		console.log(
-			`  fallbacks ${JSON.stringify(fb)}; on the ${meters.length} probes timed: minimal set ${cover.probes.length} probes (${coverMs.toFixed(0)} ms, greedy); plan ${plan.steps} steps, ${plan.expectedProbes.toFixed(2)} probes expected (${planMs.toFixed(0)} ms)`
+			`  fallbacks ${JSON.stringify(fb)}; minimal set ${cover.probes.length} probes (${coverMs.toFixed(0)} ms, greedy); plan ${plan.steps} steps, ${plan.expectedProbes.toFixed(2)} probes expected (${planMs.toFixed(0)} ms)`
 		);
 	}
 }

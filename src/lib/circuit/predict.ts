@@ -1410,10 +1410,13 @@ type MeterOn = { a: number; b: number; delta: number; inject: number; sparse?: S
  * where the sums are badly scaled, or for every meter when `solveEach` is set.
  */
 function metersOn(b: Base, meters: readonly Meter[], solveEach = false): (MeterOn | undefined)[] {
-	return meters.map((m) => {
-		const mc = meterColumn(b.c, m);
-		return mc && { ...mc, solveEach };
-	});
+	return meters.map((m) => meterOn(b, m, solveEach));
+}
+
+function meterOn(b: Base, m: Meter, solveEach: boolean): MeterOn | undefined {
+	const mc = meterColumn(b.c, m);
+	// Every field set, in one order: one shape for the pair loop.
+	return mc && { a: mc.a, b: mc.b, delta: mc.delta, inject: mc.inject, sparse: undefined, dense: undefined, ends: undefined, solveEach };
 }
 
 /** A meter's column where one hypothesis's small system reads it. */
@@ -1848,12 +1851,11 @@ export function predictReadings(
 	function onSolved(changes: readonly Change[], hi: number, only: readonly number[] | null) {
 		const local = base.localFor(changes);
 		const lp = prepare(local, []);
-		const onLocal = metersOn(local, meters, solveEach);
 		let bareEv: Evaluated | null = null;
 		const bare = () => (bareEv ??= evaluatePrepared(local, lp));
 		const kit = solveEach || !bare().ok ? null : pairKit(local, lp, bare(), []);
 		const each = (mi: number) => {
-			const r = read(local, kit, lp, [], mi, onLocal[mi], bare);
+			const r = read(local, kit, lp, [], mi, meterOn(local, meters[mi], solveEach), bare);
 			if (typeof r === 'number') out[mi][hi] = r;
 			else {
 				if (r === 'flip') fallbacks.meterFlips++;
