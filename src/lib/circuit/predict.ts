@@ -23,7 +23,20 @@
  *
  * Two more fallbacks keep the results exact: opening an element whose other side then hangs on
  * the leakage alone (the Woodbury denominator cancels to rounding, |1/δ + uᵀy| ≪ |1/δ|), and a
- * stabilizer fault that releases a regulating stabilizer.
+ * stabilizer fault that releases a regulating stabilizer. The first is avoided where the far
+ * side is a small dead island (no source, relay or stabilizer in it): the rest of the circuit
+ * then sees a tiny, well-conditioned change at the element's live end (`islandOf`), and only the
+ * meters touching the island are read on the solved fault.
+ *
+ * The pair loop (every hypothesis × every voltmeter and test lamp) costs a system of k + 1
+ * unknowns and one comparison: per hypothesis a kit is made once (`pairKit`: the fault's small
+ * block, its inverse and Θ, the least relay or stabilizer margin over its driving-point
+ * resistance), per meter the healthy column at its own two nodes once (`Base.meterEnds`), and a
+ * pair whose meter current |α| satisfies |α|·√ρₘ < Θ cannot move any relay or stabilizer
+ * (Cauchy–Schwarz in the inner product of the faulted G⁻¹). Only the pairs that fail that bound
+ * are checked at every relay and stabilizer. A test lamp's settling (solve.ts's path from relays
+ * released) is replayed only where the circuit did not settle in solve.ts's first round
+ * (`Base.replayNeeded`).
  */
 import { addCurrentSource, addElement, type Circuit, type Element, type Source, type StabilizerDevice } from './circuit';
 import type { Change, Hypothesis } from './faults';
