@@ -104,14 +104,24 @@ export function wireEdge(wire: Wire, palette: Palette, fromKey: string, toKey: s
 	};
 }
 
-/** Sets the selected flag on nodes and edges, keeping objects whose flag did not change. */
-export function withSelection<T extends { id: string; selected?: boolean }>(items: readonly T[], selected: ReadonlySet<string>): T[] {
+/** Sets a flag on nodes or edges, keeping the objects whose flag did not change (and the array, if none did). */
+function withFlag<T extends { id: string; selected?: boolean; hidden?: boolean }>(items: readonly T[], flag: 'selected' | 'hidden', want: (item: T) => boolean): T[] {
 	let changed = false;
 	const out = items.map((item) => {
-		const want = selected.has(item.id);
-		if (!!item.selected === want) return item;
+		const value = want(item);
+		if (!!item[flag] === value) return item;
 		changed = true;
-		return { ...item, selected: want };
+		return { ...item, [flag]: value };
 	});
 	return changed ? out : (items as T[]);
+}
+
+/** Sets the selected flag on nodes and edges. */
+export function withSelection<T extends { id: string; selected?: boolean }>(items: readonly T[], selected: ReadonlySet<string>): T[] {
+	return withFlag(items, 'selected', (item) => selected.has(item.id));
+}
+
+/** Hides or shows every node (the far-zoom overview draws them instead). */
+export function withHidden<T extends { id: string; hidden?: boolean }>(items: readonly T[], hidden: boolean): T[] {
+	return withFlag(items, 'hidden', () => hidden);
 }
