@@ -36,7 +36,7 @@ describe('terminalEnd', () => {
 			for (const h of node.handles!) {
 				const ours = terminalEnd(node, h.id!)!;
 				expect(ours.side).toBe(h.position);
-				expect(ours.point).toEqual(getHandlePosition(internal, { ...h, id: h.id ?? null, nodeId: node.id }));
+				expect(ours.point).toEqual(getHandlePosition(internal, { ...h, id: h.id ?? null, nodeId: node.id, width: h.width!, height: h.height! }));
 			}
 		}
 	});
