@@ -147,3 +147,53 @@ describe('the state bound: a meter whose current could move a relay is checked o
 		expect(Math.abs(full - (released * released) / 28.8 / 5)).toBeGreaterThan(1e-4);
 	});
 });
+
+describe('the first-round bound: a test lamp that changes solve.ts\'s settling path is replayed', () => {
+	// Worked by hand. A self-latching relay: its coil (80 Ω, pull-in 7.2 V: the relay part's
+	// defaults) is fed at 86 through a weak 46 Ω feed, and its own 30–87 contact joins 86 to the
+	// battery once it pulls in. From relays released (solve.ts's start) the coil gets
+	// 12.6 × 80 / 126 = 8.0 V: it pulls in, latches at 12.6 V and the circuit settles in the second
+	// round. A 5 W test lamp (28.8 Ω) at 86 pulls the first round's coil voltage down to
+	// 12.6 × (80 ∥ 28.8) / (46 + 80 ∥ 28.8) = 12.6 × 21.2 / 67.2 = 4.0 V: the relay never pulls in,
+	// and the lamp reads about 4 V (brightness 4.0² / 28.8 / 5 ≈ 0.11). The latched state with the
+	// lamp (86 at the battery) would be self-consistent, so only the settling path tells them
+	// apart: the pair must not be read from the settled state (brightness about 1.1).
+	const doc = assertDocument({
+		schemaVersion: 1,
+		vehicle: { systemVoltage: 12, earth: 'negative' },
+		parts: [
+			{ id: 'bat', key: '1', kind: 'battery' },
+			{ id: 'k', key: '2', kind: 'relay' },
+			{ id: 'weak', key: '3', kind: 'resistor', params: { resistance: 46 } },
+			{ id: 'e', key: '4', kind: 'earth-point' }
+		],
+		wires: [
+			{ id: 'strap', from: { part: 'bat', terminal: '-' }, to: { part: 'e', terminal: 'stud' }, code: 'B' },
+			{ id: 'feed30', from: { part: 'bat', terminal: '+' }, to: { part: 'k', terminal: '30' }, code: 'N' },
+			{ id: 'feedWeak', from: { part: 'bat', terminal: '+' }, to: { part: 'weak', terminal: '1' }, code: 'N' },
+			{ id: 'coil', from: { part: 'weak', terminal: '2' }, to: { part: 'k', terminal: '86' }, code: 'P' },
+			{ id: 'latch', from: { part: 'k', terminal: '87' }, to: { part: 'k', terminal: '86' }, code: 'P' },
+			{ id: 'coilE', from: { part: 'k', terminal: '85' }, to: { part: 'e', terminal: 'stud' }, code: 'B' }
+		]
+	});
+	const c = buildCircuit(doc, defaultScenario(doc));
+	const lamp: Meter = { kind: 'lamp', a: { part: 'k', terminal: '86' }, b: 'earth', ohms: 28.8, watts: 5 };
+
+	it('settles latched in the second round, and stays released with the lamp at 86', () => {
+		const base = new Base(c);
+		expect(base.settledSecondRound).toBe(true);
+		expect(base.solution.energised.has('k')).toBe(true);
+		const withLamp = solveCircuit(faultedCircuit(c, [{ type: 'to-chassis', node: c.terminalNode({ part: 'k', terminal: '86' }), ohms: 28.8 }]));
+		expect(withLamp.energised.has('k')).toBe(false);
+	});
+
+	it('reads the lamp as a full re-solve does (about 4 V, not the latched 12.6 V)', () => {
+		const fb = emptyFallbacks();
+		const [l] = predictReadings(new Base(c), [{ changes: [] }], [lamp], fb);
+		const full = fullReading(c, [], lamp);
+		expect(Math.abs(l[0] - full)).toBeLessThanOrEqual(1e-9 * full);
+		// 4.0 V by hand (wires and joints are milliohms beside 46 Ω): brightness 0.11, well below the latched 1.1.
+		expect(Math.abs(Math.sqrt(full * 28.8 * 5) - 3.97)).toBeLessThan(0.05);
+		expect(fb.meterFlips).toBe(1);
+	});
+});

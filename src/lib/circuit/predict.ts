@@ -412,6 +412,12 @@ export class Base {
 	}
 
 	private readonly contacts: Set<number>;
+
+	/** Do the changes touch a relay contact? */
+	touchesContact(changes: readonly Change[]): boolean {
+		for (const ch of changes) if (ch.type === 'element' && this.contacts.has(ch.element)) return true;
+		return false;
+	}
 	private incident?: number[][];
 
 	/** Elements at each node (built on first use). */
@@ -513,6 +519,29 @@ export class Base {
 			this.start = { f, x, g, cols: new Map(), fixed, forward: cachedForward(f, new Map()), sparse: new Map(), scratch: new ColumnScratch(n, fixed, nodeColumn, []), dense: new Float64Array(n) };
 		}
 		return this.start;
+	}
+
+	private startBaseCache?: Base;
+
+	/** solve.ts's first round (relays as built, stabilizers closed) as a base of its own, for the first-round bound. */
+	startBase(): Base {
+		if (!this.startBaseCache) {
+			const st = this.startState();
+			const c = this.c;
+			const energised = new Set(c.relays.filter((r) => st.g[r.normallyOpen] > 0).map((r) => r.part));
+			const x = st.x;
+			const solution: Solution = { circuit: c, voltages: x, g: st.g, currents: new Float64Array(0), power: new Map(), energised, regulating: new Map(), converged: true, iterations: 1, warnings: [], factor: st.f, at: (i) => (i < 0 ? 0 : x[i]) };
+			this.startBaseCache = new Base(c, solution);
+		}
+		return this.startBaseCache;
+	}
+
+	/**
+	 * The base settled in solve.ts's second round with no stabilizer regulating: its first round
+	 * moved relays (and closed stabilizers) once, the second moved nothing.
+	 */
+	get settledSecondRound(): boolean {
+		return this.solution.converged && this.solution.iterations === 2 && this.regulated.length === 0;
 	}
 
 	/** A meter's column on the first round's matrix, where a replay reads it, for one fault's nodes. */
@@ -1198,7 +1227,7 @@ export const ROUNDING_LIMIT = { volts: 1e-11, lamp: 1e-11, ohms: 1e-11, current:
  * Solve the small system for a prepared fault plus an optional meter column / injection, then
  * check every relay and stabilizer still sits in the state of the base.
  */
-function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: number; delta: number; inject: number; col: Column }): Evaluated {
+function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: number; delta: number; inject: number; col: Column }, checks = true): Evaluated {
 	const c = base.c;
 	const nf = p.cols.length;
 	const withMeter = !!meter && meter.delta !== 0;
@@ -1299,6 +1328,7 @@ function evaluatePrepared(base: Base, p: Prepared, meter?: { a: number; b: numbe
 		return EPS * e + d;
 	};
 	const gOf = (k: number) => p.gNew.get(k) ?? base.g[k];
+	if (!checks) return { ok: true, at: value, gOf, errorOf };
 	// Relays keep their state?
 	const relays = c.relays;
 	for (let ri = 0; ri < relays.length; ri++) {
@@ -1576,7 +1606,7 @@ function invertFlat(a: Float64Array, inv: Float64Array, m: number): boolean {
 const RHO_SLACK = 1e-8;
 
 /** The kit of a prepared hypothesis whose bare state checked out, or null where the bound does not apply (a regulating stabilizer). */
-function pairKit(base: Base, p: Prepared, ev: Evaluated, changes: readonly Change[]): PairKit | null {
+function pairKit(base: Base, p: Prepared, ev: Evaluated, changes: readonly Change[], decided?: readonly (boolean | null)[]): PairKit | null {
 	if (base.regulated.length) return null;
 	const c = base.c;
 	const k = p.cols.length;
@@ -1645,7 +1675,13 @@ function pairKit(base: Base, p: Prepared, ev: Evaluated, changes: readonly Chang
 		const v = Math.abs(ev.at(coil.a) - ev.at(coil.b));
 		// The thresholds of evaluatePrepared's relay check: released stays below pull-in; pulled in
 		// stays at pull-in or above (at drop-out or above when held in).
-		const margin = base.energisedAt[ri] ? v - (base.coilBelowPullIn[ri] ? r.dropOut : r.pullIn) : r.pullIn - v;
+		let margin: number;
+		if (decided) {
+			// solve.ts's round from this base's states: pulled in stays at drop-out or above,
+			// released pulls in at pull-in; the decision taken without the meter must stand.
+			const threshold = base.energisedAt[ri] ? r.dropOut : r.pullIn;
+			margin = decided[ri] ? v - threshold : threshold - v;
+		} else margin = base.energisedAt[ri] ? v - (base.coilBelowPullIn[ri] ? r.dropOut : r.pullIn) : r.pullIn - v;
 		limit(margin, coil.a, coil.b);
 	}
 	for (let i = 0; i < c.stabilizers.length && theta > 0; i++) {
@@ -1661,6 +1697,40 @@ function pairKit(base: Base, p: Prepared, ev: Evaluated, changes: readonly Chang
 	}
 	kit.theta = theta;
 	return kit;
+}
+
+/**
+ * The first-round kit of a hypothesis, for a test lamp on a base that settled in solve.ts's second
+ * round: solve.ts's first round on the faulted circuit (relays as built, stabilizers closed, from
+ * the first round's own factorisation) must land on the base's relay states with every
+ * stabilizer closed, and Θ is taken over the margins of that round's decisions. A lamp passing
+ * this bound and the settled kit's leaves both rounds' decisions as they were without it: the
+ * first round moves the relays to the base's states, the second (the settled circuit with the
+ * fault and the lamp, the settled kit's check) moves nothing, so solve.ts stops there in the
+ * base's states and no replay is needed. Null where this does not hold (the replay decides).
+ */
+function firstRoundKit(base: Base, changes: readonly Change[]): PairKit | null {
+	if (!base.settledSecondRound || base.touchesContact(changes)) return null;
+	const sb = base.startBase();
+	const p1 = prepare(sb, changes);
+	if (p1.fallback || p1.island) return null;
+	const ev = evaluatePrepared(sb, p1, undefined, false);
+	const c = base.c;
+	const decided: (boolean | null)[] = [];
+	for (let ri = 0; ri < c.relays.length; ri++) {
+		const r = c.relays[ri];
+		const coil = c.elements[r.coil];
+		if (coil.gClosed > 0 && ev.gOf(r.coil) === 0) {
+			decided.push(null); // disconnected: solve.ts leaves it as built
+			continue;
+		}
+		const v = Math.abs(ev.at(coil.a) - ev.at(coil.b));
+		const next = sb.energisedAt[ri] ? v >= r.dropOut : v >= r.pullIn;
+		if (next !== base.energisedAt[ri]) return null;
+		decided.push(next);
+	}
+	const kit = pairKit(sb, p1, ev, changes, decided);
+	return kit && kit.theta > 0 ? kit : null;
 }
 
 /**
@@ -1798,15 +1868,25 @@ export function predictReadings(
 	const onBase = metersOn(base, meters, solveEach);
 	const got = new Float64Array(meters.length);
 	const one = new Float64Array(1);
+	const one1 = new Float64Array(1);
 	const flipped: number[] = [];
 	const later: number[] = [];
 	/** One meter on a base under a prepared hypothesis: through its kit when it has one, else the long way. */
-	const read = (b: Base, kit: PairKit | null, p: Prepared, changes: readonly Change[], mi: number, mc: MeterOn | undefined, bare: () => Evaluated): Reading | 'flip' | 'inexact' => {
+	const read = (b: Base, kit: PairKit | null, p: Prepared, changes: readonly Change[], mi: number, mc: MeterOn | undefined, bare: () => Evaluated, first?: () => PairKit | null): Reading | 'flip' | 'inexact' => {
 		const meter = meters[mi];
 		if (kit && mc && (meter.kind === 'volts' || meter.kind === 'lamp')) {
 			const code = kitReading(b, kit, meter, mc.a, mc.b, mc.delta, (mc.ends ??= b.meterEnds(mc.a, mc.b)), one);
-			// The bound stands for the settled-state check; a lamp's settling path is replayed here.
-			if (code === 0) return meter.kind === 'lamp' && kit.replay && !b.sameSettledState(changes, mc) ? 'flip' : one[0];
+			// The bound stands for the settled-state check; a lamp's settling path is then the
+			// first-round bound's (`firstRoundKit`), or replayed.
+			if (code === 0 && meter.kind === 'lamp' && kit.replay) {
+				const k1 = first?.();
+				if (k1) {
+					const sb = b.startBase();
+					if (kitReading(sb, k1, meter, mc.a, mc.b, mc.delta, sb.meterEnds(mc.a, mc.b), one1) === 0) return one[0];
+				}
+				return b.sameSettledState(changes, mc) ? one[0] : 'flip';
+			}
+			if (code === 0) return one[0];
 			if (code === 1) return 'inexact';
 			fallbacks.checkedOneByOne++;
 		}
@@ -1826,6 +1906,8 @@ export function predictReadings(
 				full = true;
 			} else {
 				const kit = solveEach ? null : pairKit(base, p, bare(), h.changes);
+				let firstKit: PairKit | null | undefined;
+				const first = () => (firstKit === undefined ? (firstKit = firstRoundKit(base, h.changes)) : firstKit);
 				flipped.length = 0;
 				later.length = 0;
 				for (let mi = 0; mi < meters.length; mi++) {
@@ -1840,7 +1922,7 @@ export function predictReadings(
 						else later.push(mi);
 						continue;
 					}
-					const r = read(base, kit, p, h.changes, mi, onBase[mi], bare);
+					const r = read(base, kit, p, h.changes, mi, onBase[mi], bare, first);
 					if (r === 'inexact') later.push(mi);
 					else if (r === 'flip') flipped.push(mi);
 					else got[mi] = r;
@@ -1868,8 +1950,10 @@ export function predictReadings(
 		let bareEv: Evaluated | null = null;
 		const bare = () => (bareEv ??= evaluatePrepared(local, lp));
 		const kit = solveEach || !bare().ok ? null : pairKit(local, lp, bare(), []);
+		let firstKit: PairKit | null | undefined;
+		const first = () => (firstKit === undefined ? (firstKit = firstRoundKit(local, [])) : firstKit);
 		const each = (mi: number) => {
-			const r = read(local, kit, lp, [], mi, meterOn(local, meters[mi], solveEach), bare);
+			const r = read(local, kit, lp, [], mi, meterOn(local, meters[mi], solveEach), bare, first);
 			if (typeof r === 'number') out[mi][hi] = r;
 			else {
 				if (r === 'flip') fallbacks.meterFlips++;
