@@ -36,7 +36,8 @@
  * (Cauchy–Schwarz in the inner product of the faulted G⁻¹). Only the pairs that fail that bound
  * are checked at every relay and stabilizer. A test lamp's settling (solve.ts's path from relays
  * released) is replayed only where the circuit did not settle in solve.ts's first round
- * (`Base.replayNeeded`).
+ * (`Base.replayNeeded`) and, on a circuit settled in the second round, only where the same bound
+ * on the first round's decisions fails (`firstRoundKit`).
  */
 import { addCurrentSource, addElement, type Circuit, type Element, type Source, type StabilizerDevice } from './circuit';
 import type { Change, Hypothesis } from './faults';
