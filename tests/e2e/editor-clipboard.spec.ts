@@ -86,3 +86,31 @@ test('a paste without clipboard access still finds the last copy made in this br
 	await expect(b.locator('[data-wire-id]').first()).toHaveAttribute('data-code', 'G/B');
 	await context.close();
 });
+
+test('copy, duplicate and paste with the buttons, on a touch screen without a keyboard', async ({ browser }) => {
+	const context = await browser.newContext({ hasTouch: true });
+	const page = await context.newPage();
+	await signIn(page);
+	const id = await newDiagram(page.request, 'Button copy loom', panelLampLoom('negative'));
+	await page.goto(`/diagrams/${id}/draw`);
+	await expect(page.locator('[data-part-id]')).toHaveCount(3);
+	await page.locator('[data-part-id="lamp"] .caption').tap();
+	await expect(page.getByRole('heading', { name: 'Lamp 12' })).toBeVisible();
+	// Duplicate: a new lamp with the next free key (the loom's highest key is 12).
+	await page.getByRole('button', { name: 'Duplicate' }).tap();
+	await expect(page.locator('[data-part-id][data-key="13"]')).toHaveAttribute('data-kind', 'lamp');
+	// Nothing selected: the drawing's panel offers the kept copy.
+	await page.locator('.svelte-flow__pane').tap({ position: { x: 30, y: 400 } });
+	await page.getByRole('button', { name: 'Paste 1 copied part' }).tap();
+	await expect(page.locator('[data-part-id][data-key="14"]')).toHaveAttribute('data-kind', 'lamp');
+	await waitSaved(page);
+	const doc = (await documentOf(page.request, id)).document as unknown as { parts: SavedPart[] };
+	expect(doc.parts.map((p) => [p.kind, p.key, p.label])).toEqual([
+		['switch', '7', 'Panel switch'],
+		['lamp', '12', 'Panel lamp'],
+		['earth-point', '3', 'Dash earth'],
+		['lamp', '13', 'Panel lamp'],
+		['lamp', '14', 'Panel lamp']
+	]);
+	await context.close();
+});
