@@ -95,6 +95,17 @@ describe('parts', () => {
 		expect(moved.parts.find((p) => p.id === 'lamp')).toBe(doc.parts.find((p) => p.id === 'lamp'));
 	});
 
+	it('moves a bent wire’s bends with a group dragged together, and leaves them when one end moves', () => {
+		const bent = valid(updateWire(sample(), 'w2', { waypoints: [{ x: 300, y: -60 }] }));
+		// Fuse and lamp dragged 50 right and 20 down together: the bend moves with them.
+		const group = moveParts(bent, new Map([['fuse', { x: 250, y: 20 }], ['lamp', { x: 450, y: 20 }]]));
+		expect(group.wires.find((w) => w.id === 'w2')!.waypoints).toEqual([{ x: 350, y: -40 }]);
+		// Only the lamp: the bend stays where it was put; wires without bends are the same objects.
+		const one = moveParts(bent, new Map([['lamp', { x: 450, y: 20 }]]));
+		expect(one.wires.find((w) => w.id === 'w2')!.waypoints).toEqual([{ x: 300, y: -60 }]);
+		expect(one.wires.find((w) => w.id === 'w3')).toBe(bent.wires.find((w) => w.id === 'w3'));
+	});
+
 	it('deletes parts with the wires on them', () => {
 		const doc = sample();
 		expect(wiresOf(doc, new Set(['lamp'])).sort()).toEqual(['w2', 'w3']);

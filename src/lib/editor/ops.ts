@@ -95,7 +95,21 @@ export function moveParts(doc: HarnessDocument, moves: ReadonlyMap<string, Posit
 		changed = true;
 		return { ...p, position: { x, y } };
 	});
-	return changed ? { ...doc, parts } : doc;
+	if (!changed) return doc;
+	// A bent wire whose two ends moved together (a group dragged) keeps its shape: its bends move
+	// with it. A wire with one end moved keeps its bends where the user put them.
+	const delta = new Map<string, Position>();
+	parts.forEach((p, i) => {
+		const was = doc.parts[i].position;
+		if (p !== doc.parts[i]) delta.set(p.id, { x: p.position.x - was.x, y: p.position.y - was.y });
+	});
+	const wires = doc.wires.map((w) => {
+		const a = delta.get(w.from.part);
+		const b = delta.get(w.to.part);
+		if (!w.waypoints?.length || !a || !b || a.x !== b.x || a.y !== b.y) return w;
+		return { ...w, waypoints: w.waypoints.map((q) => ({ x: q.x + a.x, y: q.y + a.y })) };
+	});
+	return { ...doc, parts, wires };
 }
 
 export type PartPatch = Partial<Pick<Part, 'key' | 'label' | 'location' | 'notes'>> & { params?: Record<string, unknown> };
