@@ -169,4 +169,9 @@ describe('formatRange', () => {
 		expect(formatRange({ low: 8.93, high: 11.07 }, 'V', 1)).toBe('8.9–11.1 V');
 		expect(formatRange({ low: 0, high: 0 }, 'V', 1)).toBe('0.0 V');
 	});
+	it('writes a minus sign (U+2212, ISO 80000-1) and "to" below zero, and no sign on a rounded zero', () => {
+		expect(formatRange({ low: -12.6, high: -12.43 }, 'V')).toBe('\u221212.60 to \u221212.43 V');
+		expect(formatRange({ low: -0.02, high: 0.02 }, 'V')).toBe('\u22120.02 to 0.02 V');
+		expect(formatRange({ low: -0.001, high: 0.001 }, 'V')).toBe('0.00 V');
+	});
 });

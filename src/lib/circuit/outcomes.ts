@@ -233,10 +233,18 @@ export function maxOutcomes(readings: readonly (number | null)[], tolerance: Tol
 	return count;
 }
 
-/** Prints a reading range with an en dash: "9.0–11.0 V"; a point range prints once. */
+/**
+ * Prints a reading range with an en dash, "9.0–11.0 V", and a point range once. Below zero the
+ * sign is the minus sign and the ends are joined by "to" ("−12.60 to −12.43 V"), since a dash
+ * beside a minus reads as a double sign (ISO 80000-1 writes the minus as U+2212, common practice).
+ */
 export function formatRange(range: ReadingRange, unit = '', digits = 2): string {
-	const lo = range.low.toFixed(digits);
-	const hi = range.high.toFixed(digits);
-	const text = lo === hi ? lo : `${lo}–${hi}`;
+	const number = (v: number) => {
+		const t = v.toFixed(digits);
+		return /^-0?\.?0*$/.test(t) ? t.slice(1) : t.replace('-', '\u2212');
+	};
+	const lo = number(range.low);
+	const hi = number(range.high);
+	const text = lo === hi ? lo : range.low < 0 ? `${lo} to ${hi}` : `${lo}–${hi}`;
 	return unit ? `${text} ${unit}` : text;
 }

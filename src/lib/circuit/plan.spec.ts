@@ -64,9 +64,9 @@ describe('buildPlan (worked by hand)', () => {
 		const steps = checklist(t, plan, 2);
 		// ±0.02 V at 0 V; ±(0.06 + 0.02) V at 12 V.
 		expect(steps.map((s) => [s.step, s.probe, s.outcomes.map((o) => o.text)])).toEqual([
-			[1, 'P1', ['-0.02–0.02 V: go to step 2', '11.92–12.08 V: go to step 3']],
-			[2, 'P2', ['-0.02–0.02 V: found — A', '11.92–12.08 V: found — B']],
-			[3, 'P2', ['-0.02–0.02 V: found — C', '11.92–12.08 V: found — D']]
+			[1, 'P1', ['\u22120.02 to 0.02 V: go to step 2', '11.92–12.08 V: go to step 3']],
+			[2, 'P2', ['\u22120.02 to 0.02 V: found — A', '11.92–12.08 V: found — B']],
+			[3, 'P2', ['\u22120.02 to 0.02 V: found — C', '11.92–12.08 V: found — D']]
 		]);
 		expect(steps[0].outcomes.map((o) => o.chance)).toEqual([0.5, 0.5]);
 		expect(steps[1].expected.map((e) => [e.suspect, e.reading, e.chance])).toEqual([
@@ -117,7 +117,7 @@ describe('buildPlan (worked by hand)', () => {
 			['found', [0]]
 		]);
 		expect(checklist(t, plan, 1)[0].outcomes[0].text).toBe(
-			'-0.2–0.4 Ω: cannot be told apart with a meter: replace or inspect — short at junction 1, short at junction 2'
+			'\u22120.2 to 0.4 Ω: cannot be told apart with a meter: replace or inspect — short at junction 1, short at junction 2'
 		);
 		// Lower bound: classes {fuse} 1/3 and {shorts} 2/3 → H = 0.918 bits, K = 2.
 		expect(expectedProbesLowerBound(t).probes).toBeCloseTo(-(1 / 3) * Math.log2(1 / 3) - (2 / 3) * Math.log2(2 / 3), 12);
@@ -128,7 +128,7 @@ describe('buildPlan (worked by hand)', () => {
 		const plan = buildPlan(t, { maxDepth: 1 });
 		expect(leaves(plan.root).map((l) => l.kind)).toEqual(['unresolved', 'unresolved']);
 		expect(plan.unresolvedMass).toBeCloseTo(1, 12);
-		expect(checklist(t, plan)[0].outcomes[0].text).toBe('-0.02–0.02 V: enter the readings so far to plan again — A, B');
+		expect(checklist(t, plan)[0].outcomes[0].text).toBe('\u22120.02 to 0.02 V: enter the readings so far to plan again — A, B');
 	});
 
 	it('rejects bad options with the field named', () => {

@@ -81,9 +81,9 @@ describe('steps', () => {
 			for (const [j, e] of s.expected.entries()) {
 				const r = planned.expected[j].reading;
 				// Two decimals and the unit, as the plan's ranges (plan.ts checklist, digits = 2).
-				expect(e.reading).toMatch(new RegExp(`^-?\\d+\\.\\d\\d ${s.unit}$`));
-				expect(Math.abs(Number(e.reading.split(' ')[0]) - r!)).toBeLessThanOrEqual(0.005);
-				expect(e.reading).not.toMatch(/^-0\.00/);
+				expect(e.reading).toMatch(new RegExp(`^\u2212?\\d+\\.\\d\\d ${s.unit}$`));
+				expect(Math.abs(Number(e.reading.split(' ')[0].replace('\u2212', '-')) - r!)).toBeLessThanOrEqual(0.005);
+				expect(e.reading).not.toMatch(/^\u22120\.00/);
 				expect(e.chance).toMatch(/^\d+ %$/);
 			}
 		}
@@ -92,7 +92,7 @@ describe('steps', () => {
 		const first = gaugesModel.steps[0];
 		expect(first.kind).toBe('volts');
 		for (const e of first.expected) {
-			const v = Number(e.reading.replace(' V', ''));
+			const v = Number(e.reading.replace(' V', '').replace('\u2212', '-'));
 			expect(v).toBeLessThanOrEqual(0.02);
 			expect(v).toBeGreaterThan(-12.6 * 1.005 - 0.02);
 		}
@@ -238,7 +238,7 @@ describe('meter settings', () => {
 
 	it.each([
 		// Two decimals, as the plan's ranges (plan.ts checklist, digits = 2); by hand.
-		[-12.495786, 'V', '-12.50 V'],
+		[-12.495786, 'V', '\u221212.50 V'],
 		[0.004, 'V', '0.00 V'],
 		[-0.0004, 'V', '0.00 V'],
 		[87.4, '%', '87 %'],
@@ -262,9 +262,9 @@ describe('readings already taken', () => {
 	it('fills the box of a step whose probe was read (readings typed before the plan is made again)', () => {
 		const m = checklistModel(input(gaugesLow, [firstReading(-12.31)], kestrel, []));
 		expect(m.steps[0].probe).toBe('volts:fuse-ign:out');
-		expect(m.steps[0].taken).toBe('-12.31 V');
+		expect(m.steps[0].taken).toBe('\u221212.31 V');
 		expect(m.steps.slice(1).every((s) => s.taken === null)).toBe(true);
-		expect(m.readings).toEqual([{ probe: 'volts:fuse-ign:out', label: m.steps[0].label, value: '-12.31 V', takenAt: '2026-11-28T09:40:00.000Z', takenBy: 'Demo Restorer', struck: false, queued: false }]);
+		expect(m.readings).toEqual([{ probe: 'volts:fuse-ign:out', label: m.steps[0].label, value: '\u221212.31 V', takenAt: '2026-11-28T09:40:00.000Z', takenBy: 'Demo Restorer', struck: false, queued: false }]);
 	});
 
 	it('after planning again the reading is listed and no step asks for it again; fewer suspects remain', () => {
