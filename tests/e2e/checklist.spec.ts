@@ -9,7 +9,8 @@ import { signIn } from './editor-helpers';
 // seeded demo harness (scripts/seed.ts): fuel and temperature gauges both reading low.
 
 /** A reading as the checklist prints it: two decimals and the unit (plan.ts, digits = 2), never "-0.00"; lamp brightness in whole %. */
-const printed = (v: number, unit: string) => (unit === '%' ? `${Math.round(v)} %` : `${(Math.abs(v) < 0.005 ? 0 : v).toFixed(2)} ${unit}`);
+// Two decimals, the minus sign U+2212 below zero (ISO 80000-1), as the checklist prints them.
+const printed = (v: number, unit: string) => (unit === '%' ? `${Math.round(v)} %` : `${(Math.abs(v) < 0.005 ? 0 : v).toFixed(2).replace('-', '\u2212')} ${unit}`);
 
 test('checklist print page: cautions, every step with its expected readings, controls hidden; the PDF has as many steps', async ({ page }, testInfo) => {
 	test.setTimeout(120_000);
