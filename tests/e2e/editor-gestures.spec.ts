@@ -87,6 +87,36 @@ test('drag a wire’s run sideways: the bend is drawn, saved as waypoints, undon
 	expect(pointsOf((await base.getAttribute('d'))!)).toEqual(before);
 });
 
+test('move a wire’s run with the keyboard: arrows step it, the other axis is ignored, one undo takes all the steps back', async ({ page }) => {
+	await signIn(page);
+	const id = await newDiagram(page.request, 'Keyboard bend loom', panelLampLoom('negative'));
+	await page.goto(`/diagrams/${id}/draw`);
+	const base = page.locator('[data-wire-id="w1"] [data-role="base"]');
+	await expect(base).toBeVisible();
+	const before = pointsOf((await base.getAttribute('d'))!);
+	const at = await onWire(page, 'w1');
+	await page.mouse.click(at.x, at.y);
+	const handle = page.locator('[data-wire-id="w1"] [data-bend-handle="1"]');
+	await handle.focus();
+	// The middle run of the Z is vertical: right three steps of 8 and one Shift step of 40 move
+	// it 64 to the right; up and down do nothing to it.
+	for (let i = 0; i < 3; i++) await page.keyboard.press('ArrowRight');
+	await page.keyboard.press('ArrowUp');
+	await page.keyboard.press('Shift+ArrowRight');
+	await expect(handle).toBeFocused();
+	const moved = pointsOf((await base.getAttribute('d'))!);
+	expect(moved).toHaveLength(4);
+	expect([moved[1].x, moved[2].x]).toEqual([before[1].x + 64, before[2].x + 64]);
+	expect([moved[0], moved[3], moved[1].y, moved[2].y]).toEqual([before[0], before[3], before[1].y, before[2].y]);
+	await waitSaved(page);
+	const saved = (await documentOf(page.request, id)).document.wires as unknown as SavedWire[];
+	expect(saved.find((w) => w.id === 'w1')!.waypoints).toEqual([moved[1], moved[2]]);
+	// All the presses on that run were one edit.
+	await page.getByRole('button', { name: 'Undo: Bend wire G/B' }).click();
+	expect(pointsOf((await base.getAttribute('d'))!)).toEqual(before);
+	await expect(page.getByRole('button', { name: 'Undo', exact: true })).toBeDisabled();
+});
+
 test('drag a part from the tray onto the drawing: it lands with its middle where it was dropped', async ({ page }) => {
 	await signIn(page);
 	const id = await newDiagram(page.request, 'Drop test loom', panelLampLoom('negative'));

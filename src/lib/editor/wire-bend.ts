@@ -6,8 +6,13 @@ import type { Point } from './route';
 export type WireBender = {
 	/** False while the board is read-only or tracing. */
 	readonly enabled: boolean;
-	/** Stores the wire's new waypoints as one undoable edit. */
-	bend: (wireId: string, waypoints: Point[]) => void;
+	/**
+	 * Stores the wire's new waypoints as one undoable edit; edits with the same `mergeKey` in a
+	 * row (arrow-key steps on one run) are one undo step.
+	 */
+	bend: (wireId: string, waypoints: Point[], mergeKey?: string) => void;
+	/** Ends a run of merged edits (the run's handle lost focus). */
+	seal: () => void;
 };
 
 const KEY = Symbol('wire-bender');
