@@ -4,11 +4,12 @@
 //
 //   npx tsx scripts/bench/ui.ts
 //
-// Starts its own server from build/ (run `npm run build` first) against E2E_DATABASE_URL,
+// Starts its own server from build/ (or LOOM_BUILD_DIR; run `npm run build` first) against E2E_DATABASE_URL,
 // after migrating and seeding it; or set BENCH_URL to use a running server with the demo account.
 import { chromium, type Page } from '@playwright/test';
 import { spawn, execFileSync, type ChildProcess } from 'node:child_process';
 import { generateLoom } from './loom';
+import { OVERVIEW_ZOOM } from '../../src/lib/editor/overview';
 
 const PARTS = Number(process.env.BENCH_PARTS ?? 1000);
 const WIRES = Number(process.env.BENCH_WIRES ?? 2000);
@@ -37,7 +38,7 @@ async function startServer(): Promise<{ origin: string; child: ChildProcess | nu
 	const env = { ...process.env, DATABASE_URL: db, PORT: String(PORT), ORIGIN: origin, NODE_ENV: 'production', BODY_SIZE_LIMIT: '16M', LOOM_DEV_MAIL: '1' };
 	execFileSync('node', ['--import', 'tsx', 'scripts/migrate.ts'], { env, stdio: 'ignore' });
 	execFileSync('node', ['--import', 'tsx', 'scripts/seed.ts'], { env, stdio: 'ignore' });
-	const child = spawn('node', ['build'], { env, stdio: 'ignore' });
+	const child = spawn('node', [process.env.LOOM_BUILD_DIR ?? 'build'], { env, stdio: 'ignore' });
 	await waitFor(`${origin}/api/health`, 30_000);
 	return { origin, child };
 }
@@ -144,7 +145,9 @@ async function main() {
 			for (let i = 0; i < 20; i++) await page.mouse.wheel(0, i < 10 ? 120 : -120);
 			await page.waitForTimeout(300);
 		});
-		console.log(`zoom: median frame ${median(zoom).toFixed(1)} ms, 90th percentile ${percentile(zoom, 0.9).toFixed(1)} ms over ${zoom.length} frames`);
+		console.log(
+			`zoom: median frame ${median(zoom).toFixed(1)} ms, 90th percentile ${percentile(zoom, 0.9).toFixed(1)} ms over ${zoom.length} frames (out to the overview below zoom ${OVERVIEW_ZOOM} and back in, where the parts are mounted again)`
+		);
 		await context.close();
 	} finally {
 		await browser.close();
