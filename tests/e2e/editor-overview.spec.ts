@@ -17,6 +17,11 @@ async function pixelsOf(page: Page, rgb: [number, number, number]) {
 	}, rgb);
 }
 
+const viewOf = (page: Page) =>
+	page.locator('.svelte-flow__viewport').evaluate((el) => {
+		const m = new DOMMatrixReadOnly(getComputedStyle(el).transform);
+		return { x: m.e, y: m.f, zoom: m.a };
+	});
 const zoomOf = (page: Page) => page.locator('.svelte-flow__viewport').evaluate((el) => new DOMMatrixReadOnly(getComputedStyle(el).transform).a);
 
 test('a large loom zoomed far out becomes an overview and comes back live, selection kept', async ({ page }) => {
@@ -37,7 +42,7 @@ test('a large loom zoomed far out becomes an overview and comes back live, selec
 	}
 	expect(await zoomOf(page)).toBeLessThan(0.35);
 	await expect(page.getByTestId('loom-overview')).toBeVisible();
-	await expect(page.getByRole('status').filter({ hasText: 'zoom in to pick and edit' })).toBeVisible();
+	await expect(page.getByRole('status').filter({ hasText: 'or zoom in, to pick and edit' })).toBeVisible();
 	await expect(page.locator('[data-part-id]')).toHaveCount(0);
 	await expect(page.locator('[data-wire-id]')).toHaveCount(0);
 	// The red wires are on the picture, and the selected part in its selected fill (#f3dcc8).
@@ -53,4 +58,23 @@ test('a large loom zoomed far out becomes an overview and comes back live, selec
 	await expect(page.getByTestId('loom-overview')).toHaveCount(0);
 	await expect(page.locator('[data-part-id]').first()).toBeVisible();
 	await expect(page.locator('[data-part-id="p0"]')).toHaveClass(/selected/);
+
+	// Out again, and a click on the overview zooms in on that place (to 0.8, centred on it).
+	for (let i = 0; i < 6; i++) {
+		await out.click();
+		await page.waitForTimeout(220);
+	}
+	await expect(page.getByTestId('loom-overview')).toBeVisible();
+	const pane = (await page.locator('.svelte-flow').boundingBox())!;
+	const click = { x: pane.x + pane.width * 0.6, y: pane.y + pane.height * 0.6 };
+	const before = await viewOf(page);
+	const target = { x: (click.x - pane.x - before.x) / before.zoom, y: (click.y - pane.y - before.y) / before.zoom };
+	await page.mouse.click(click.x, click.y);
+	await expect(page.getByTestId('loom-overview')).toHaveCount(0);
+	await expect(page.locator('[data-part-id]').first()).toBeVisible();
+	await expect.poll(async () => (await viewOf(page)).zoom).toBeCloseTo(0.8, 2);
+	const after = await viewOf(page);
+	const centre = { x: (pane.width / 2 - after.x) / after.zoom, y: (pane.height / 2 - after.y) / after.zoom };
+	expect(Math.abs(centre.x - target.x)).toBeLessThan(3);
+	expect(Math.abs(centre.y - target.y)).toBeLessThan(3);
 });
