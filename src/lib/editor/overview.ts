@@ -102,14 +102,11 @@ export function drawOverview(ctx: CanvasRenderingContext2D, overview: Overview, 
 	stroke(visible, () => '#1b1f24', Math.max(8, 2 * px));
 	stroke(visible, (w) => w.base, Math.max(6, 1.2 * px));
 	if (zoom > 0.15) stroke(visible, (w) => w.tracer, Math.max(2, 0.6 * px));
+	ctx.lineWidth = Math.max(1.5, px);
 	for (const p of overview.parts) {
 		if (p.x > right || p.y > bottom || p.x + p.width < left || p.y + p.height < top) continue;
 		ctx.fillStyle = p.selected ? '#f3dcc8' : '#fffdf8';
 		ctx.fillRect(p.x, p.y, p.width, p.height);
-	}
-	ctx.lineWidth = Math.max(1.5, px);
-	for (const p of overview.parts) {
-		if (p.x > right || p.y > bottom || p.x + p.width < left || p.y + p.height < top) continue;
 		ctx.strokeStyle = p.selected ? '#9a4a12' : '#1b1f24';
 		ctx.strokeRect(p.x, p.y, p.width, p.height);
 	}
