@@ -51,14 +51,31 @@ for i in "${!names[@]}"; do
 	printf '  %-4s %s\n' "${results[$i]}" "${names[$i]}"
 	[ "${results[$i]}" = pass ] || failed=1
 done
-# Test counts from the runners' JSON reports.
+# Test counts from the runners' JSON reports, and the failed tests by name, so the last lines
+# of a long run say what broke.
 node -e '
 const fs = require("fs");
 let passed = 0, failed = 0;
+const names = [];
 for (const f of ["unit", "integration"]) {
-	try { const r = JSON.parse(fs.readFileSync(process.argv[1] + "/" + f + ".json", "utf8")); passed += r.numPassedTests; failed += r.numFailedTests; } catch { failed += 1; }
+	try {
+		const r = JSON.parse(fs.readFileSync(process.argv[1] + "/" + f + ".json", "utf8"));
+		passed += r.numPassedTests; failed += r.numFailedTests;
+		for (const file of r.testResults) for (const t of file.assertionResults)
+			if (t.status === "failed") names.push(`${f}: ${file.name.replace(process.cwd() + "/", "")} › ${t.fullName}: ${(t.failureMessages[0] ?? "").split("\n")[0].slice(0, 300)}`);
+	} catch { failed += 1; names.push(`${f}: no report`); }
 }
-try { const s = JSON.parse(fs.readFileSync(process.argv[1] + "/e2e.json", "utf8")).stats; passed += s.expected + s.flaky; failed += s.unexpected; } catch { failed += 1; }
+try {
+	const r = JSON.parse(fs.readFileSync(process.argv[1] + "/e2e.json", "utf8"));
+	passed += r.stats.expected + r.stats.flaky; failed += r.stats.unexpected;
+	const walk = (suite, path) => {
+		for (const spec of suite.specs ?? []) for (const t of spec.tests) if (t.status === "unexpected")
+			names.push(`e2e: ${spec.file} › ${[...path, spec.title].join(" › ")}: ${(t.results.at(-1)?.error?.message ?? "").split("\n")[0].slice(0, 300)}`);
+		for (const s of suite.suites ?? []) walk(s, suite.title && !suite.title.endsWith(".ts") ? [...path, suite.title] : path);
+	};
+	for (const s of r.suites) walk(s, []);
+} catch { failed += 1; names.push("e2e: no report"); }
+for (const n of names) console.log("  failed: " + n.replace(/\x1b\[[0-9;]*m/g, ""));
 console.log(`${passed} passed, ${failed} failed`);
 ' "$out"
 exit $failed

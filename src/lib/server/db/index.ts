@@ -11,12 +11,18 @@ export type Db = typeof db;
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 export { schema };
 
-export async function ping(): Promise<boolean> {
+/** Whether PostgreSQL answers `select 1` within `limitMs`. */
+export async function ping(limitMs: number): Promise<boolean> {
+	let timer: ReturnType<typeof setTimeout> | undefined;
+	const late = new Promise<false>((resolve) => (timer = setTimeout(() => resolve(false), limitMs)));
+	const answer = client`select 1`.then(
+		() => true,
+		() => false
+	);
 	try {
-		await client`select 1`;
-		return true;
-	} catch {
-		return false;
+		return await Promise.race([answer, late]);
+	} finally {
+		clearTimeout(timer);
 	}
 }
 
