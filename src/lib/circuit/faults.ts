@@ -29,6 +29,7 @@ import { resolveParams } from './parts';
 import type { Scenario } from './scenario';
 import type { HarnessDocument, Part } from './schema';
 import { prepareTrace, type TracePoint } from './trace';
+import { wireNames } from './wire-names';
 
 /** One change to the circuit. Element and node indices refer to `buildCircuit` of the document. */
 export type Change =
@@ -216,11 +217,6 @@ function elementKeys(c: Circuit): Map<string, number> {
 	return keys;
 }
 
-const keyOf = (doc: HarnessDocument) => {
-	const keys = new Map(doc.parts.map((p) => [p.id, p.key]));
-	return (id: string) => keys.get(id) ?? id;
-};
-
 /** Generate the hypotheses of a document's circuit (any setup of it) over a region. */
 export function generateHypotheses(c: Circuit, options: HypothesisOptions = {}): Hypothesis[] {
 	const doc = c.doc;
@@ -230,7 +226,7 @@ export function generateHypotheses(c: Circuit, options: HypothesisOptions = {}):
 	const inParts = (id: string) => !region || region.parts.has(id);
 	const inWires = (id: string) => !region || region.wires.has(id);
 	const elements = elementKeys(c);
-	const key = keyOf(doc);
+	const names = wireNames(doc);
 	const out: Hypothesis[] = [];
 	const add = (kind: FaultKind, site: string, label: string, place: FaultPlace, changes: Change[], ohms?: number) => {
 		const w = weights[kind];
@@ -246,13 +242,13 @@ export function generateHypotheses(c: Circuit, options: HypothesisOptions = {}):
 
 	for (const w of doc.wires) {
 		if (!inWires(w.id)) continue;
-		const code = w.code;
 		const wire = elements.get(`wire:${w.id}`)!;
-		add('wire:open', `wire:${w.id}:open`, `Wire ${code} (${w.id}) broken inside its insulation`, { wire: w.id }, [{ type: 'element', element: wire, ohms: null }]);
+		const named = names.wire(w);
+		add('wire:open', `wire:${w.id}:open`, `${named[0].toUpperCase()}${named.slice(1)} broken inside its insulation`, { wire: w.id }, [{ type: 'element', element: wire, ohms: null }]);
 		for (const end of ['from', 'to'] as const) {
 			const ref = w[end];
 			const joint = elements.get(`joint:${w.id}:${end}`)!;
-			const at = `wire ${code} at ${key(ref.part)}.${ref.terminal}`;
+			const at = names.end(w, end);
 			const place = { wire: w.id, end, part: ref.part, terminals: [ref.terminal] };
 			add('joint:off', `joint:${w.id}:${end}:off`, `End of ${at} off its terminal`, place, [{ type: 'element', element: joint, ohms: null }]);
 			resistive('joint:resistive', `joint:${w.id}:${end}`, `Corroded or loose end of ${at}`, place, joint);

@@ -21,6 +21,7 @@ import type { HarnessDocument, Part } from './schema';
 import type { Solution } from './solve';
 import type { Tolerance } from './outcomes';
 import { prepareTrace, type TracePoint } from './trace';
+import { wireNames } from './wire-names';
 
 export const PROBE_KINDS = ['volts', 'drop', 'ohms', 'lamp'] as const;
 export type ProbeKind = (typeof PROBE_KINDS)[number];
@@ -154,6 +155,7 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 	const lampOhms = lampResistance(doc.vehicle.systemVoltage, profile.lamp.watts);
 	const lampTol: Tolerance = { abs: profile.lamp.abs, rel: profile.lamp.rel };
 	const name = (p: Part) => (p.label ? `${p.key} (${p.label})` : p.key);
+	const names = wireNames(doc);
 
 	// Terminals of the region, one per node (the most reachable terminal of the node).
 	const byNode = new Map<string, { part: Part; terminal: string }>();
@@ -243,7 +245,7 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 					setup: 'as-given',
 					meter: { kind: 'volts', a: ref, b: { wire: w.id, end }, inputOhms: profile.inputOhms },
 					place: place(p, ref.terminal, { part: p.id, key: p.key, terminal: ref.terminal, wire: w.id, end }),
-					label: `Volt drop across the joint of wire ${w.code} at ${name(p)}.${ref.terminal} (terminal to wire just behind it)`,
+					label: `Volt drop across the joint of wire ${w.code} at ${name(p)}.${ref.terminal}${names.whichOne(w, end)} (terminal to wire just behind it)`,
 					setting: 'DC volts, 20 V range; back-probe the wire behind the crimp',
 					conditions: [...scenarioText, 'Circuit working (under load)'],
 					cautions: cautionsAt(p, true),

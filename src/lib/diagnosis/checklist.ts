@@ -11,8 +11,9 @@ import type { DiagnoseResult } from '$lib/circuit/diagnose';
 import type { MeterProfile } from '$lib/circuit/meter-profiles';
 import { formatRange } from '$lib/circuit/outcomes';
 import type { ChecklistStep } from '$lib/circuit/plan';
-import type { HarnessDocument, Part } from '$lib/circuit/schema';
+import type { HarnessDocument, Part, Wire } from '$lib/circuit/schema';
 import type { Mark } from '$lib/circuit/symptoms';
+import { wireNames, type WireNames } from '$lib/circuit/wire-names';
 import { CAUTION_TEXTS, cautionOf, mayHaveAirbags, requiredCautions, type CautionId } from './cautions';
 import { readingsForPlan, type DiagnosisJson, type ReadingJson } from './session';
 
@@ -202,15 +203,16 @@ export function wireColours(codes: readonly string[], palette: Palette): WireCol
 const partName = (p: Pick<Part, 'key' | 'label'> | undefined, fallback: string) => (p ? `${p.key}${p.label ? ` ${p.label}` : ''}` : fallback);
 
 /** Where the black lead goes, in words: the planner's own sentence when it gave one. */
-function blackLeadOf(probe: Probe, parts: Map<string, Part>, wiresById: Map<string, { code: string }>): { text: string; fromConditions: string | null } {
+function blackLeadOf(probe: Probe, parts: Map<string, Part>, wiresById: Map<string, Wire>, names: WireNames): { text: string; fromConditions: string | null } {
 	const said = probe.conditions.find((c) => /^(Black lead|Lamp clip)\b/.test(c));
 	if (said) return { text: said, fromConditions: said };
 	const to = probe.place.to;
 	if (to === 'earth') return { text: 'Black lead on the battery\u2019s earthed post', fromConditions: null };
 	if (to === 'chassis') return { text: 'Black lead on a clean, bare body point near the part', fromConditions: null };
 	if (to.wire) {
-		const code = wiresById.get(to.wire)?.code ?? to.wire;
-		return { text: `Black lead on wire ${code}, just behind its crimp at terminal ${to.terminal}`, fromConditions: null };
+		const w = wiresById.get(to.wire);
+		const which = w && to.end ? names.whichOne(w, to.end) : '';
+		return { text: `Black lead on wire ${w?.code ?? to.wire}${which}, just behind its crimp at terminal ${to.terminal}`, fromConditions: null };
 	}
 	if (to.part === probe.place.part) return { text: `Black lead on terminal ${to.terminal} of the same part`, fromConditions: null };
 	return { text: `Black lead on ${partName(parts.get(to.part), to.key)}, terminal ${to.terminal}`, fromConditions: null };
@@ -244,6 +246,7 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 	const palette = resolvePalette(doc.palette);
 	const parts = new Map(doc.parts.map((p) => [p.id, p]));
 	const wiresById = new Map(doc.wires.map((w) => [w.id, w]));
+	const names = wireNames(doc);
 	const probes = new Map(result.probes.map((p) => [p.id, p]));
 	const planSteps: ChecklistStep[] = result.plan.steps;
 	const overLimit = meter.ohms.overLimit;
@@ -287,7 +290,7 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 	const steps: PrintStep[] = planSteps.map((s, i) => {
 		const p = stepProbes[i];
 		const part = parts.get(p.place.part);
-		const lead = blackLeadOf(p, parts, wiresById);
+		const lead = blackLeadOf(p, parts, wiresById, names);
 		const u = used[p.id];
 		const taken = u === undefined ? null : readingText(u === 'OL' ? { outcome: 'over-range', value: null, unit: p.unit } : u === 'unreachable' ? { outcome: 'unreachable', value: null, unit: p.unit } : { outcome: 'value', value: u, unit: p.unit }, overLimit);
 		return {
