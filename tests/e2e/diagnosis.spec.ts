@@ -62,6 +62,13 @@ test('the demo fault: shared point, a diagnosis planned and followed to the plan
 	expect(suspectsAtStart).toBeGreaterThan(3);
 	// Both gauges low: what they share is suspected (the stabilizer among it), common practice.
 	await expect(page.locator('[data-testid="suspect"][data-suspect="stabilizer:low:stabilizer"]')).toHaveCount(1);
+	// Every suspect reads differently (several earths meet at one stud), and a long group of
+	// suspects on the card ends in words: "…; …; … and 6 more (53 %)", spaced as a sentence.
+	const names = await page.getByTestId('suspect').allTextContents();
+	expect(new Set(names).size).toBe(names.length);
+	const groups = await page.getByTestId('expected-group').allInnerTexts();
+	expect(groups.some((g) => / and \d+ more \(/.test(g))).toBe(true);
+	for (const g of groups) expect(g).not.toMatch(/\Sand \d+ more/);
 
 	// Follow the plan, typing what the meter would show with the planted fault there.
 	let probes = 0;

@@ -90,3 +90,15 @@ test('deleting a part asks first when wires would go with it, and undo restores 
 	await expect(page.locator('[data-kind="fuse"]')).toHaveCount(1);
 	await expect(page.locator('[data-wire-id]')).toHaveCount(1);
 });
+
+test('the keyboard sheet spaces an action’s keys as "A or B"', async ({ page }) => {
+	await signIn(page);
+	const id = await newDiagram(page.request, 'Shortcut sheet loom');
+	await page.goto(`/diagrams/${id}/draw`);
+	await page.getByRole('button', { name: 'Keyboard shortcuts' }).click();
+	const sheet = page.getByRole('dialog', { name: 'Keyboard shortcuts' });
+	await expect(sheet).toBeVisible();
+	// Redo has two keys in the shortcut table (src/lib/editor/shortcuts.ts).
+	const keys = sheet.locator('tr', { hasText: /redo/i }).first().locator('td:has(kbd)');
+	await expect(keys).toHaveText(/^\s*\S+( or \S+)+\s*$/);
+});

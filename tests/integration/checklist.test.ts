@@ -122,4 +122,26 @@ describe('the print page /diagnoses/[id]/checklist', () => {
 		const other = await fetch(`${baseUrl()}/diagnoses/${diagnosisId}/checklist`, { headers: { cookie: stranger.cookie, accept: 'text/html' } });
 		expect(other.status).toBe(404);
 	});
+
+	it('prints a struck reading and a conclusion as words spaced apart from what comes before them', async () => {
+		const d = await api('GET', `/api/diagnoses/${diagnosisId}`, owner.cookie);
+		const diagramId = d.body.diagnosis.diagramId;
+		const started = await api('POST', `/api/diagrams/${diagramId}/diagnoses`, owner.cookie, { revision: 1, marks: gaugesLow });
+		expect(started.status, JSON.stringify(started.body)).toBe(201);
+		const id = started.body.diagnosis.id;
+		const probe = started.body.plan.plan.steps[0].probe;
+		const r = await api('POST', `/api/diagnoses/${id}/readings`, owner.cookie, {
+			readings: [{ clientId: crypto.randomUUID(), probe, outcome: 'value', value: predicted, unit: 'V', takenAt: new Date().toISOString() }]
+		});
+		expect(r.status, JSON.stringify(r.body)).toBeLessThan(300);
+		expect((await api('DELETE', `/api/diagnoses/${id}/readings/${r.body.readings[0].id}`, owner.cookie)).status).toBeLessThan(300);
+		const now = await api('GET', `/api/diagnoses/${id}`, owner.cookie);
+		const done = await api('POST', `/api/diagnoses/${id}/conclude`, owner.cookie, { version: now.body.diagnosis.version, conclusion: 'Stabilizer replaced.' });
+		expect(done.status, JSON.stringify(done.body)).toBe(200);
+		const html = await (await fetch(`${baseUrl()}/diagnoses/${id}/checklist`, { headers: { cookie: owner.cookie, accept: 'text/html' } })).text();
+		// Svelte's hydration markers are not text; what is left reads as the printed sentence.
+		const text = html.replace(/<!--.*?-->/g, '');
+		expect(text).toMatch(/[^\s>] Concluded: Stabilizer replaced\./);
+		expect(text).toMatch(/[^\s>] <span[^>]*>\(struck out: not used\)/);
+	});
 });
