@@ -66,7 +66,7 @@ describe('suspects and probes on the demo harness', () => {
 		const labels = generateHypotheses(buildCircuit(demo, scenario)).map((h) => h.label);
 		const twice = labels.filter((l, i) => labels.indexOf(l) !== i);
 		expect(twice).toEqual([]);
-		const gauges = demo.parts.filter((p) => p.kind === 'gauge').map((p) => ({ part: p.id, symptom: 'reads-low' as const }));
+		const gauges = demo.parts.filter((p) => p.kind === 'gauge').map((p) => ({ part: p.id, mark: 'reads-low' as const }));
 		const result = diagnose({ doc: demo, scenario, marks: gauges });
 		const probeLabels = result.probes.map((p) => p.label);
 		expect(probeLabels.filter((l, i) => probeLabels.indexOf(l) !== i)).toEqual([]);
