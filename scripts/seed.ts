@@ -1,11 +1,13 @@
 // Demo data: a demo restorer, a site admin, one invented vehicle and its drawn harness
-// (the circuit core's invented demo harness, 52 parts).
+// (the circuit core's invented demo harness, 52 parts), and an invented owners' club whose
+// organiser shares a checked copy of the same harness with it, so the club library, the
+// "Shared" page and copying to one's garage have something to show.
 // Idempotent: run it again and it finds what is there instead of adding copies.
 // Every name here is invented (the maker, the model, the people).
 import { and, eq } from 'drizzle-orm';
 import * as accounts from '../src/lib/server/auth/accounts';
 import { db } from '../src/lib/server/db';
-import { diagnoses, diagrams, vehicles, type Diagram, type User } from '../src/lib/server/db/schema';
+import { clubMembers, clubs, comments, diagnoses, diagramShares, diagrams, vehicles, type Diagram, type User } from '../src/lib/server/db/schema';
 import * as diagnosisStore from '../src/lib/server/diagnoses';
 import * as diagramStore from '../src/lib/server/garage/diagrams';
 import { demoHarness } from '../src/lib/circuit/demo';
@@ -16,6 +18,11 @@ import type { User as SessionUser } from 'lucia';
 
 export const DEMO = { email: 'demo@loomwright.test', password: 'tracer-stripe-demo', displayName: 'Demo Restorer' };
 export const ADMIN = { email: 'admin@loomwright.test', password: 'earth-strap-admin', displayName: 'Site admin' };
+export const ORGANISER = { email: 'organiser@loomwright.test', password: 'bonded-earth-organiser', displayName: 'Club Organiser' };
+export const CLUB = {
+	name: 'Kestrel Tourer Register',
+	description: 'Invented demo club for owners of the (equally invented) Hartwell & Pryce Kestrel. Checked harness diagrams are shared here; copy one to your garage and correct it for your car.'
+};
 
 async function account(input: accounts.NewAccount): Promise<User> {
 	const found = await accounts.findByEmail(input.email);
@@ -57,42 +64,74 @@ async function seedHunt(user: User, diagram: Diagram, hunt: DemoHunt) {
 	await db.update(diagnoses).set({ createdAt: started, updatedAt: started, concludedAt: new Date(started.getTime() + 3 * 3_600_000) }).where(eq(diagnoses.id, done.id));
 }
 
+/** The vehicle named `name` in `owner`'s garage, made once. */
+async function vehicleOf(owner: User, name: string, values: Omit<typeof vehicles.$inferInsert, 'ownerId' | 'name'>) {
+	const [found] = await db
+		.select()
+		.from(vehicles)
+		.where(and(eq(vehicles.ownerId, owner.id), eq(vehicles.name, name)));
+	return found ?? (await db.insert(vehicles).values({ ownerId: owner.id, name, ...values }).returning())[0];
+}
+
+/** The diagram titled `title` on `vehicle`, made once from `document`. */
+async function diagramOf(vehicle: typeof vehicles.$inferSelect, authorId: string, title: string, document: ReturnType<typeof demoHarness>): Promise<Diagram> {
+	const [found] = await db
+		.select()
+		.from(diagrams)
+		.where(and(eq(diagrams.vehicleId, vehicle.id), eq(diagrams.title, title)));
+	return found ?? (await diagramStore.create(vehicle, authorId, title, document));
+}
+
+/** The demo club: the organiser runs it, the demo restorer is a member; both share a harness with it. */
+async function seedClub(organiser: User, demo: User, demoDiagram: Diagram) {
+	let [club] = await db.select().from(clubs).where(eq(clubs.name, CLUB.name));
+	club ??= (await db.insert(clubs).values(CLUB).returning())[0];
+	await db
+		.insert(clubMembers)
+		.values([
+			{ clubId: club.id, userId: organiser.id, role: 'organiser' },
+			{ clubId: club.id, userId: demo.id, role: 'member' }
+		])
+		.onConflictDoNothing();
+	const car = await vehicleOf(organiser, 'Register car no. 7', {
+		make: 'Hartwell & Pryce',
+		model: 'Kestrel Tourer',
+		year: '1963',
+		systemVoltage: 12,
+		earthPolarity: 'positive',
+		notes: 'Invented demo vehicle: the club organiser’s own Kestrel, used to check the register’s harness diagram.'
+	});
+	const checked = await diagramOf(car, organiser.id, 'Register harness, checked wire by wire', demoHarness());
+	await db.insert(diagramShares).values({ diagramId: checked.id, clubId: club.id, level: 'view' }).onConflictDoNothing();
+	await db.insert(diagramShares).values({ diagramId: demoDiagram.id, clubId: club.id, level: 'comment' }).onConflictDoNothing();
+	const note = 'Checked against my own car: the colours match the register diagram. Fuses are numbered from the front of the box.';
+	const [said] = await db
+		.select({ id: comments.id })
+		.from(comments)
+		.where(and(eq(comments.diagramId, demoDiagram.id), eq(comments.body, note)));
+	if (!said) await db.insert(comments).values({ diagramId: demoDiagram.id, authorId: organiser.id, target: 'diagram', body: note });
+}
+
 async function main() {
 	const demo = await account(DEMO);
 	await account({ ...ADMIN, role: 'admin' });
 
-	const name = 'The Kestrel';
-	let [kestrel] = await db
-		.select()
-		.from(vehicles)
-		.where(and(eq(vehicles.ownerId, demo.id), eq(vehicles.name, name)));
-	kestrel ??= (
-		await db
-			.insert(vehicles)
-			.values({
-				ownerId: demo.id,
-				name,
-				make: 'Hartwell & Pryce',
-				model: 'Kestrel Tourer',
-				year: '1962',
-				systemVoltage: 12,
-				earthPolarity: 'positive',
-				notes:
-					'Invented demo vehicle. Dynamo charging with a two-bobbin regulator; fuel and temperature gauges fed through a voltage stabilizer behind the speedometer.\nSince the winter lay-up the fuel and temperature gauges both read low; the stabilizer is the obvious suspect.'
-			})
-			.returning()
-	)[0];
-
-	const title = 'Complete harness';
-	const [existing] = await db
-		.select({ id: diagrams.id })
-		.from(diagrams)
-		.where(and(eq(diagrams.vehicleId, kestrel.id), eq(diagrams.title, title)));
-	const diagram = existing ? (await db.select().from(diagrams).where(eq(diagrams.id, existing.id)))[0] : await diagramStore.create(kestrel, demo.id, title, demoHarness());
+	const kestrel = await vehicleOf(demo, 'The Kestrel', {
+		make: 'Hartwell & Pryce',
+		model: 'Kestrel Tourer',
+		year: '1962',
+		systemVoltage: 12,
+		earthPolarity: 'positive',
+		notes:
+			'Invented demo vehicle. Dynamo charging with a two-bobbin regulator; fuel and temperature gauges fed through a voltage stabilizer behind the speedometer.\nSince the winter lay-up the fuel and temperature gauges both read low; the stabilizer is the obvious suspect.'
+	});
+	const diagram = await diagramOf(kestrel, demo.id, 'Complete harness', demoHarness());
 	for (const hunt of [...PAST_HUNTS, OPEN_HUNT]) await seedHunt(demo, diagram, hunt);
+	await seedClub(await account(ORGANISER), demo, diagram);
 
 	console.log('[seed] demo account  %s / %s', DEMO.email, DEMO.password);
 	console.log('[seed] site admin    %s / %s', ADMIN.email, ADMIN.password);
+	console.log('[seed] club organiser %s / %s (%s)', ORGANISER.email, ORGANISER.password, CLUB.name);
 }
 
 try {

@@ -32,6 +32,7 @@ cat >&2 <<TXT
   Loomwright is running at  http://localhost:$port
   Demo sign-in:             demo@loomwright.test  /  tracer-stripe-demo
   Site admin:               admin@loomwright.test /  earth-strap-admin
+  Club organiser:           organiser@loomwright.test / bonded-earth-organiser
   Caught mail (dev):        http://localhost:$port/admin/mail
 
 TXT

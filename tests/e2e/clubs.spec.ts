@@ -4,7 +4,7 @@
 // stays as it was, and the owner's comment notification is caught. Accounts are made here with
 // unique addresses, so the spec depends on no other. The loom is the invented panel-lamp one.
 import { expect, test, type Page } from '@playwright/test';
-import { panelLampLoom, waitSaved } from './editor-helpers';
+import { panelLampLoom, signIn, waitSaved } from './editor-helpers';
 
 const MAIL = `http://127.0.0.1:${process.env.MAIL_API_PORT ?? 2626}/messages`;
 const unique = (name: string) => `${name}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@example.test`;
@@ -138,4 +138,21 @@ test('organiser invites, member accepts, copies the shared diagram and corrects 
 	expect(notice.text).toContain('the part 12 Panel lamp');
 	expect(notice.text).toContain('red with a white tracer');
 	await member.context().close();
+});
+
+test('the demo restorer is a member of the demo club, whose library holds the organiser’s checked harness', async ({ page }) => {
+	await signIn(page);
+	await page.goto('/clubs');
+	await page.getByRole('link', { name: 'Kestrel Tourer Register' }).click();
+	await expect(page.getByText('You are a member.')).toBeVisible();
+	const shared = page.getByRole('list', { name: 'Shared diagrams' });
+	await expect(shared.getByRole('link', { name: 'Complete harness' })).toBeVisible();
+	await shared.getByRole('link', { name: 'Register harness, checked wire by wire' }).click();
+	await expect(page.getByText('shared with you: read-only')).toBeVisible();
+	await expect(page.getByRole('link', { name: 'Copy to my garage' })).toBeVisible();
+	await expect(page.getByRole('button', { name: 'Rename' })).toHaveCount(0);
+	// The same diagram on the page of what is shared with the demo restorer.
+	await page.goto('/shared');
+	await expect(page.getByRole('link', { name: 'Register harness, checked wire by wire' })).toBeVisible();
+	await expect(page.getByText('through Kestrel Tourer Register')).toBeVisible();
 });
