@@ -109,7 +109,7 @@ async function seedClub(organiser: User, demo: User, demoDiagram: Diagram) {
 		.select({ id: comments.id })
 		.from(comments)
 		.where(and(eq(comments.diagramId, demoDiagram.id), eq(comments.body, note)));
-	if (!said) await db.insert(comments).values({ diagramId: demoDiagram.id, authorId: organiser.id, target: 'diagram', body: note });
+	if (!said) await db.insert(comments).values({ diagramId: demoDiagram.id, authorId: organiser.id, target: 'diagram', body: note, createdAt: new Date(Date.now() - 5 * 86_400_000) });
 }
 
 async function main() {

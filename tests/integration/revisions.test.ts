@@ -4,7 +4,7 @@ import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '../../src/lib/server/db';
 import { diagramRevisions } from '../../src/lib/server/db/schema';
-import { api, signedInAccount, type SignedIn } from './helpers';
+import { api, baseUrl, signedInAccount, type SignedIn } from './helpers';
 
 const vehicle = { name: 'History Kestrel', make: 'Hartwell & Pryce', model: 'Kestrel Tourer', year: '1962', systemVoltage: 12, earthPolarity: 'positive' };
 const withLamp = (label: string) => ({
@@ -44,6 +44,19 @@ describe('revision history', () => {
 		const r = await api('GET', `/api/diagrams/${diagramId}/revisions/1`, owner.cookie);
 		expect(r.status).toBe(200);
 		expect(r.body.revision.document.parts[0].label).toBe('first');
+	});
+
+	it('says on the history page what a revision changed against the one before it', async () => {
+		const page = async (n: number) => {
+			const res = await fetch(`${baseUrl()}/diagrams/${diagramId}/revisions?view=${n}`, { headers: { cookie: owner.cookie, accept: 'text/html' } });
+			expect(res.status).toBe(200);
+			return (await res.text()).replace(/<!--.*?-->/g, '');
+		};
+		const second = await page(2);
+		expect(second).toContain('What changed since revision 1');
+		expect(second).toContain('Part 14 second: label “first” → “second”');
+		// The first revision has nothing before it.
+		expect(await page(1)).not.toContain('What changed since');
 	});
 
 	it('restores revision 1 as a new revision 4, keeping 1–3 as they were', async () => {

@@ -1,4 +1,6 @@
 import { error, fail } from '@sveltejs/kit';
+import { parseDocument } from '$lib/circuit/schema';
+import { documentChanges, type Changes } from '$lib/editor/changes';
 import { canEdit, NOT_FOUND, requireDiagram } from '$lib/server/access';
 import * as vehicles from '$lib/server/garage/vehicles';
 import { list, one, restore, revisionNumber } from '../../../../api/diagrams/[id]/revisions/revisions.server';
@@ -10,16 +12,23 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 	const { diagram, vehicle } = await requireDiagram(locals, params.id, 'view');
 	const wanted = url.searchParams.get('view');
 	let viewing = null;
+	// What the viewed revision changed against the one before it (none for the first).
+	let changes: Changes | null = null;
 	if (wanted !== null) {
 		const n = revisionNumber(wanted);
 		viewing = n === null ? null : await one(diagram.id, n);
 		if (!viewing) error(404, NOT_FOUND);
+		const before = viewing.revision > 1 ? await one(diagram.id, viewing.revision - 1) : null;
+		const a = before && parseDocument(before.document);
+		const b = parseDocument(viewing.document);
+		if (a?.ok && b.ok) changes = documentChanges(a.document, b.document);
 	}
 	return {
 		diagram: { id: diagram.id, title: diagram.title, revision: diagram.revision },
 		vehicle: vehicles.toJson(vehicle),
 		revisions: await list(diagram.id),
 		viewing,
+		changes,
 		editable: canEdit(locals.user, diagram)
 	};
 };
