@@ -1,7 +1,7 @@
 // Comments on a diagram, or on one of its parts or wires (named by its id in the document),
 // threaded by replying to a comment. The owner hears of each new comment by e-mail unless they
 // turned it off (account page) or wrote it themselves.
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, count, eq, ne } from 'drizzle-orm';
 import type { User as SessionUser } from 'lucia';
 import { z } from 'zod';
 import { db } from './db';
@@ -42,6 +42,16 @@ export async function list(diagramId: string): Promise<CommentJson[]> {
 		body: c.body,
 		createdAt: c.createdAt.toISOString()
 	}));
+}
+
+/** How many comments (replies included) each part and wire has, keyed "part:<id>" / "wire:<id>". */
+export async function countsByTarget(diagramId: string): Promise<Record<string, number>> {
+	const rows = await db
+		.select({ target: comments.target, targetId: comments.targetId, n: count() })
+		.from(comments)
+		.where(and(eq(comments.diagramId, diagramId), ne(comments.target, 'diagram')))
+		.groupBy(comments.target, comments.targetId);
+	return Object.fromEntries(rows.map((r) => [`${r.target}:${r.targetId}`, r.n]));
 }
 
 /** Parts and wires of a document as {id, label}, to comment on one of them. */

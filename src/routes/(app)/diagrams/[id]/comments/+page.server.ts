@@ -6,12 +6,20 @@ import { fieldErrors, fromZod } from '$lib/server/issues';
 import type { Actions, PageServerLoad } from './$types';
 
 // The discussion of a diagram: on the whole drawing, or on one part or wire; threaded.
-export const load: PageServerLoad = async ({ locals, params }) => {
+export const load: PageServerLoad = async ({ locals, params, url }) => {
 	const { diagram } = await requireDiagram(locals, params.id, 'comment');
+	const targets = comments.targetsOf(diagram.document);
+	// ?about=part:<id> or wire:<id> (from the drawing board): open at that part's or wire's comments.
+	const about = url.searchParams.get('about') ?? '';
+	const [kind, ...rest] = about.split(':');
+	const id = rest.join(':');
+	const known = kind === 'part' ? targets.parts : kind === 'wire' ? targets.wires : [];
+	const hit = known.find((t) => t.id === id);
 	return {
 		diagram: { id: diagram.id, title: diagram.title },
 		comments: await comments.list(diagram.id),
-		targets: comments.targetsOf(diagram.document),
+		targets,
+		focus: hit ? { key: `${kind}:${id}`, target: kind as 'part' | 'wire', id, name: `${kind === 'part' ? 'Part' : 'Wire'} ${hit.label}` } : null,
 		canComment: canComment(locals.user, diagram)
 	};
 };

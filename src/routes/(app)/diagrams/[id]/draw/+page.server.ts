@@ -1,4 +1,5 @@
-import { requireDiagram, canEdit } from '$lib/server/access';
+import { requireDiagram, canComment, canEdit } from '$lib/server/access';
+import * as comments from '$lib/server/comments';
 import * as diagrams from '$lib/server/garage/diagrams';
 import * as palettes from '$lib/server/palettes';
 import * as vehicles from '$lib/server/garage/vehicles';
@@ -13,6 +14,8 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 		diagram: diagrams.toJson(diagram, true),
 		vehicle: vehicles.toJson(vehicle),
 		editable,
-		palettes: editable && locals.user ? await palettes.listFor(locals.user) : []
+		palettes: editable && locals.user ? await palettes.listFor(locals.user) : [],
+		// Comment counts per part and wire, for those who may read and write comments.
+		comments: canComment(locals.user, diagram) ? await comments.countsByTarget(diagram.id) : null
 	};
 };
