@@ -101,6 +101,32 @@ describe('clubs and invitations', () => {
 		expect((await get(`/clubs/${clubId}`, org.cookie)).status).toBe(404);
 		expect(await (await get(`/clubs/${clubId}`, m1.cookie)).text()).toContain('You are the organiser');
 	});
+
+	it('the organiser deletes a club by typing its name; members lose it, the shared diagrams stay with their owners', async () => {
+		const org = await person('Closing Organiser');
+		const member = await person('Closing Member');
+		const clubId = await makeClub(org, 'Closing Club');
+		await inviteAndAccept(clubId, org, member);
+		const { diagram } = await vehicleAndDiagram(member, 'Hartwell', 'Kestrel Tourer', '1962', 'Shared before closing');
+		expect((await form(`/diagrams/${diagram.id}/share?/club`, { clubId, level: 'view' }, member.cookie)).status).toBe(200);
+		expect((await api('GET', `/api/diagrams/${diagram.id}`, org.cookie)).status).toBe(200);
+
+		// A member may not; the organiser must type the name (a near miss changes nothing).
+		expect((await form(`/clubs/${clubId}?/delete`, { confirmName: 'Closing Club' }, member.cookie)).status).toBe(403);
+		const wrong = await form(`/clubs/${clubId}?/delete`, { confirmName: 'Closing' }, org.cookie);
+		expect(wrong.status).toBe(400);
+		expect(await wrong.text()).toContain('Type the club’s name');
+		expect((await get(`/clubs/${clubId}`, member.cookie)).status).toBe(200);
+
+		const done = await form(`/clubs/${clubId}?/delete`, { confirmName: ' Closing Club ' }, org.cookie);
+		expect(done.status).toBe(303);
+		expect(done.headers.get('location')).toBe('/clubs');
+		expect((await get(`/clubs/${clubId}`, org.cookie)).status).toBe(404);
+		expect((await get(`/clubs/${clubId}`, member.cookie)).status).toBe(404);
+		// The share went with the club; the diagram is still its owner's.
+		expect((await api('GET', `/api/diagrams/${diagram.id}`, org.cookie)).status).toBe(404);
+		expect((await api('GET', `/api/diagrams/${diagram.id}`, member.cookie)).status).toBe(200);
+	});
 });
 
 describe('shares, the club library and read-only links', () => {

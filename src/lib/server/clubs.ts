@@ -24,6 +24,14 @@ export async function create(user: Pick<SessionUser, 'id'>, name: string, descri
 	});
 }
 
+/**
+ * Ends a club: its memberships, invitations and shares go with it (foreign keys cascade); the
+ * diagrams shared with it stay in their owners' garages, as they were.
+ */
+export async function remove(clubId: string): Promise<void> {
+	await db.delete(clubs).where(eq(clubs.id, clubId));
+}
+
 export async function update(clubId: string, name: string, description: string): Promise<void> {
 	await db.update(clubs).set({ name, description }).where(eq(clubs.id, clubId));
 }

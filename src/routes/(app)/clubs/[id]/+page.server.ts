@@ -61,6 +61,17 @@ export const actions: Actions = {
 		if (!r.ok) return fail(400, { action: 'members', message: r.message });
 		redirect(303, '/clubs');
 	},
+	delete: async ({ locals, params, request }) => {
+		const { club } = await requireClub(locals, params.id, 'organiser');
+		// Other people lose the club too: the organiser types its name to be sure.
+		const typed = String((await request.formData()).get('confirmName') ?? '').trim();
+		if (typed !== club.name.trim()) {
+			const errors: Record<string, string> = { confirmName: `Type the club’s name, “${club.name}”, to delete it.` };
+			return fail(400, { action: 'delete', errors });
+		}
+		await clubs.remove(club.id);
+		redirect(303, '/clubs');
+	},
 	update: async ({ locals, params, request }) => {
 		const { club } = await requireClub(locals, params.id, 'organiser');
 		const values = formObject(await request.formData());
