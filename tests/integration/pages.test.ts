@@ -15,7 +15,15 @@ async function upload(diagramId: string, cookie: string, bytes: Uint8Array, name
 	const form = new FormData();
 	form.append('file', new File([bytes as BlobPart], name, { type }));
 	// The browser sends Origin on a form POST; SvelteKit's CSRF check wants it.
-	const res = await fetch(`${baseUrl()}/api/diagrams/${diagramId}/pages`, { method: 'POST', headers: { cookie, origin: baseUrl(), accept: 'application/json' }, body: form });
+	// A time limit of its own, so a stalled upload fails here, by name, before the test's own.
+	const res = await fetch(`${baseUrl()}/api/diagrams/${diagramId}/pages`, {
+		method: 'POST',
+		headers: { cookie, origin: baseUrl(), accept: 'application/json' },
+		body: form,
+		signal: AbortSignal.timeout(20_000)
+	}).catch((e) => {
+		throw new Error(`upload of ${name} (${bytes.byteLength} bytes) got no answer: ${e}`);
+	});
 	return { status: res.status, body: await res.json() };
 }
 

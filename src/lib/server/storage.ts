@@ -4,6 +4,9 @@
 // forcePathStyle: the fake (and many S3-compatible services) answer at host/bucket/key, not
 // bucket.host. The checksum settings 'WHEN_REQUIRED': newer SDKs add CRC32 trailers to every
 // upload, which the fake stores as part of the body (STACK.md, "s3rver with the AWS SDK v3").
+// Time limits: the SDK sets none by default, so a store that stalls would hold an upload open
+// for ever; a connection that takes over 5 s or a socket idle for 10 s fails and is retried
+// (the SDK's default of 3 attempts).
 import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import { config } from './config';
 
@@ -16,7 +19,8 @@ function s3(): S3Client {
 		forcePathStyle: config.s3.forcePathStyle,
 		credentials: { accessKeyId: config.s3.accessKeyId, secretAccessKey: config.s3.secretAccessKey },
 		requestChecksumCalculation: 'WHEN_REQUIRED',
-		responseChecksumValidation: 'WHEN_REQUIRED'
+		responseChecksumValidation: 'WHEN_REQUIRED',
+		requestHandler: { connectionTimeout: 5_000, socketTimeout: 10_000 }
 	});
 	return client;
 }
