@@ -34,12 +34,27 @@ export function endpoint<E extends RequestEvent<any, any>>(
 		try {
 			return await handler(event);
 		} catch (e) {
-			if (e instanceof BadRequest) return apiError(400, { error: e.message, issues: e.issues });
-			if (isHttpError(e)) return apiError(e.status, { error: e.body.message });
-			console.error('[api]', event.request.method, event.url.pathname, e);
-			return apiError(500, { error: 'Something went wrong on our side. Try again in a moment.' });
+			return unread(event.request, answerFor(event, e));
 		}
 	};
+}
+
+function answerFor(event: RequestEvent, e: unknown): Response {
+	if (e instanceof BadRequest) return apiError(400, { error: e.message, issues: e.issues });
+	if (isHttpError(e)) return apiError(e.status, { error: e.body.message });
+	console.error('[api]', event.request.method, event.url.pathname, e);
+	return apiError(500, { error: 'Something went wrong on our side. Try again in a moment.' });
+}
+
+/**
+ * An error answered before the request's body was read (an upload refused by the access check,
+ * say) closes the connection: the rest of that body may still be arriving, and a client that
+ * sent its next request on the same connection could wait for an answer that never comes
+ * (RFC 9112 §9.6: a server that does not read the whole message closes).
+ */
+function unread(request: Request, res: Response): Response {
+	if (request.body !== null && !request.bodyUsed) res.headers.set('connection', 'close');
+	return res;
 }
 
 /** Reads and validates a JSON body; malformed JSON or a failed schema throws BadRequest. */
