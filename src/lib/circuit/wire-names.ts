@@ -11,6 +11,8 @@ export type WireNames = {
 	wire(w: Wire): string;
 	/** "wire B at 49.stud" or, when another wire of that code ends there too, "wire B at 49.stud (the one to 19.E)" */
 	end(w: Wire, end: 'from' | 'to'): string;
+	/** Where an end is, without the wire: "49.stud" or "49.stud (the one to 19.E)". */
+	terminal(w: Wire, end: 'from' | 'to'): string;
 	/** What `end` adds after the terminal: "" or " (the one to 19.E)", for names that spell the terminal their own way. */
 	whichOne(w: Wire, end: 'from' | 'to'): string;
 };
@@ -35,9 +37,11 @@ export function wireNames(doc: Pick<HarnessDocument, 'parts' | 'wires'>): WireNa
 		const shared = (byEnd.get(`${w.code}@${at(w[end])}`) ?? 0) > 1;
 		return `${shared ? ` (the one to ${at(w[end === 'from' ? 'to' : 'from'])})` : ''}${twin(w)}`;
 	};
+	const terminal = (w: Wire, end: 'from' | 'to') => `${at(w[end])}${whichOne(w, end)}`;
 	return {
 		wire: (w) => `wire ${w.code} between ${at(w.from)} and ${at(w.to)}${twin(w)}`,
-		end: (w, end) => `wire ${w.code} at ${at(w[end])}${whichOne(w, end)}`,
+		end: (w, end) => `wire ${w.code} at ${terminal(w, end)}`,
+		terminal,
 		whichOne
 	};
 }

@@ -7,6 +7,7 @@
  */
 import type { HarnessDocument, Part, Wire } from '$lib/circuit/schema';
 import { wireNames } from '$lib/circuit/wire-names';
+import { formatSize } from './sizes';
 
 export type Change = { kind: 'added' | 'removed' | 'changed'; what: 'part' | 'wire' | 'vehicle' | 'palette'; id: string; text: string };
 
@@ -20,7 +21,6 @@ export type Changes = {
 type Doc = Pick<HarnessDocument, 'vehicle' | 'parts' | 'wires' | 'palette'>;
 
 const same = (a: unknown, b: unknown) => JSON.stringify(a ?? null) === JSON.stringify(b ?? null);
-const size = (s: Wire['size']) => ('mm2' in s ? `${s.mm2} mm²` : `${s.awg} AWG`);
 const partName = (p: Part) => (p.label ? `${p.key} ${p.label}` : p.key);
 const paletteName = (p: Doc['palette']) => (typeof p === 'string' ? p : p.name);
 
@@ -74,7 +74,6 @@ export function documentChanges(before: Doc, after: Doc): Changes {
 	const newNames = wireNames(after);
 	const oldWires = new Map(before.wires.map((w) => [w.id, w]));
 	const newWires = new Map(after.wires.map((w) => [w.id, w]));
-	const end = (names: typeof oldNames, w: Wire, e: 'from' | 'to') => names.end(w, e).replace(/^wire \S+ at /, '');
 	for (const w of after.wires) {
 		const o = oldWires.get(w.id);
 		if (!o) {
@@ -84,9 +83,9 @@ export function documentChanges(before: Doc, after: Doc): Changes {
 		const said: string[] = [];
 		if (o.code !== w.code) said.push(`code ${o.code} → ${w.code}`);
 		for (const e of ['from', 'to'] as const) {
-			if (!same(o[e], w[e])) said.push(`${e === 'from' ? 'one end' : 'other end'} ${end(oldNames, o, e)} → ${end(newNames, w, e)}`);
+			if (!same(o[e], w[e])) said.push(`${e === 'from' ? 'one end' : 'other end'} ${oldNames.terminal(o, e)} → ${newNames.terminal(w, e)}`);
 		}
-		if (!same(o.size, w.size)) said.push(`size ${size(o.size)} → ${size(w.size)}`);
+		if (!same(o.size, w.size)) said.push(`size ${formatSize(o.size)} → ${formatSize(w.size)}`);
 		if (o.lengthM !== w.lengthM) said.push(`length ${o.lengthM} m → ${w.lengthM} m`);
 		if ((o.notes ?? '') !== (w.notes ?? '')) said.push('notes edited');
 		if (said.length) changes.push({ kind: 'changed', what: 'wire', id: w.id, text: `${cap(newNames.wire(w))}: ${said.join('; ')}` });

@@ -6,13 +6,18 @@ import { fieldErrors, fromZod } from '$lib/server/issues';
 import type { Actions, PageServerLoad } from './$types';
 
 // The discussion of a diagram: on the whole drawing, or on one part or wire; threaded.
+
+/** "part:<id>", "wire:<id>" or "diagram", as the target picker and ?about= write it. */
+function about(value: string): { target: string; id: string } {
+	const [target, ...rest] = value.split(':');
+	return { target, id: rest.join(':') };
+}
+
 export const load: PageServerLoad = async ({ locals, params, url }) => {
 	const { diagram } = await requireDiagram(locals, params.id, 'comment');
 	const targets = comments.targetsOf(diagram.document);
 	// ?about=part:<id> or wire:<id> (from the drawing board): open at that part's or wire's comments.
-	const about = url.searchParams.get('about') ?? '';
-	const [kind, ...rest] = about.split(':');
-	const id = rest.join(':');
+	const { target: kind, id } = about(url.searchParams.get('about') ?? '');
 	const known = kind === 'part' ? targets.parts : kind === 'wire' ? targets.wires : [];
 	const hit = known.find((t) => t.id === id);
 	return {
@@ -28,13 +33,12 @@ export const actions: Actions = {
 	default: async ({ locals, params, request }) => {
 		const { diagram } = await requireDiagram(locals, params.id, 'comment');
 		const values = formObject(await request.formData());
-		// The target picker sends "part:<id>" or "wire:<id>" in one field.
-		const [target, ...rest] = (values.about ?? 'diagram').split(':');
+		const { target, id } = about(values.about ?? 'diagram');
 		const parsed = comments.commentBody.safeParse({
 			body: values.body,
 			parentId: values.parentId || undefined,
 			target,
-			targetId: rest.join(':') || undefined
+			targetId: id || undefined
 		});
 		if (!parsed.success) return fail(400, { values, errors: fieldErrors(fromZod(parsed.error)) });
 		const r = await comments.add(diagram, locals.user!, parsed.data);
