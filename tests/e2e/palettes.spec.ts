@@ -7,9 +7,12 @@ test('make a palette from a built-in, see the stripe live, use it in a diagram, 
 	await signIn(page);
 	const name = `Workshop codes ${Date.now().toString(36)}`;
 	await page.goto('/palettes');
-	await page.getByRole('button', { name: 'Duplicate Single-letter trade code' }).click();
 	const form = page.getByRole('form', { name: 'New palette' });
-	await expect(form.getByLabel('Palette name')).toHaveValue(/^My Single-letter trade code/);
+	// A click before the page's script has arrived does nothing: press again until the form opens.
+	await expect(async () => {
+		await page.getByRole('button', { name: 'Duplicate Single-letter trade code' }).click();
+		await expect(form.getByLabel('Palette name')).toHaveValue(/^My Single-letter trade code/, { timeout: 1000 });
+	}).toPass({ timeout: 15_000 });
 	await form.getByLabel('Palette name').fill(name);
 	// The twelve trade colours came along.
 	await expect(form.locator('[data-colour-row]')).toHaveCount(12);

@@ -90,24 +90,14 @@ describe('manual pages', () => {
 		expect((await call('GET', `/api/diagrams/${diagramId}/pages`, owner.cookie)).body.pages).toHaveLength(1);
 	});
 
-	it('an upload refused before it is read closes its connection, so the next request is answered', async () => {
+	it('an upload refused before it is read leaves its connection fit for the next request', async () => {
 		const diagramId = await newDiagram('Refused uploads');
-		for (let i = 0; i < 20; i++) {
-			const form = new FormData();
-			form.append('file', new File([page as BlobPart], 'x.png', { type: 'image/png' }));
-			// Refused by the access check before the body is read (RFC 9112 §9.6: then close).
-			const refused = await fetch(`${baseUrl()}/api/diagrams/${diagramId}/pages`, {
-				method: 'POST',
-				headers: { cookie: stranger.cookie, origin: baseUrl(), accept: 'application/json' },
-				body: form,
-				signal: AbortSignal.timeout(20_000)
-			});
-			expect(refused.status).toBe(404);
-			expect(refused.headers.get('connection')).toBe('close');
-			await refused.arrayBuffer();
-			// Without the close, this one sometimes went out on the half-read connection and waited for ever.
-			const next = await upload(diagramId, owner.cookie, new TextEncoder().encode('not an image'), 'n.png');
-			expect(next.status).toBe(400);
+		// Without the server reading the refused body, about one pair in twenty hung; sixty pairs
+		// catch that almost always.
+		for (let i = 0; i < 60; i++) {
+			// Refused by the access check before the handler reads the body.
+			expect((await upload(diagramId, stranger.cookie, page, 'x.png')).status).toBe(404);
+			expect((await upload(diagramId, owner.cookie, new TextEncoder().encode('not an image'), 'n.png')).status).toBe(400);
 		}
 	});
 

@@ -34,7 +34,9 @@ export function endpoint<E extends RequestEvent<any, any>>(
 		try {
 			return await handler(event);
 		} catch (e) {
-			return unread(event.request, answerFor(event, e));
+			const res = answerFor(event, e);
+			await drain(event.request, res);
+			return res;
 		}
 	};
 }
@@ -48,13 +50,18 @@ function answerFor(event: RequestEvent, e: unknown): Response {
 
 /**
  * An error answered before the request's body was read (an upload refused by the access check,
- * say) closes the connection: the rest of that body may still be arriving, and a client that
- * sent its next request on the same connection could wait for an answer that never comes
- * (RFC 9112 §9.6: a server that does not read the whole message closes).
+ * say) reads the rest of that body first: left half-read, the connection could carry the
+ * client's next request into the unread bytes and leave it waiting for an answer that never
+ * comes. A body the server will not take (over BODY_SIZE_LIMIT) closes the connection instead
+ * (RFC 9112 §9.6).
  */
-function unread(request: Request, res: Response): Response {
-	if (request.body !== null && !request.bodyUsed) res.headers.set('connection', 'close');
-	return res;
+async function drain(request: Request, res: Response): Promise<void> {
+	if (request.body === null || request.bodyUsed) return;
+	try {
+		await request.arrayBuffer();
+	} catch {
+		res.headers.set('connection', 'close');
+	}
 }
 
 /** Reads and validates a JSON body; malformed JSON or a failed schema throws BadRequest. */
