@@ -43,6 +43,8 @@ export interface DiagnoseInput {
 
 export interface SuspectOut {
 	id: string;
+	/** The place and mode, whatever the fault's size (`joint:w-ign-fuse:to` for every joint resistance there). */
+	site: string;
 	label: string;
 	kind: FaultKind | 'double';
 	/** Chance among the suspects (priors × fit, normalised). */
@@ -237,6 +239,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	const total = chosen.reduce((s, e) => s + e.h.prior * e.ex.fit, 0);
 	const suspects: SuspectOut[] = chosen.map((e) => ({
 		id: e.h.id,
+		site: e.h.site,
 		label: e.h.label,
 		kind: e.h.kind,
 		chance: (e.h.prior * e.ex.fit) / total,

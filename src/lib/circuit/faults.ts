@@ -145,6 +145,42 @@ export const STABILIZER_DRIFT = { low: 0.7, high: 1.3 } as const;
 /** A run-down 12 V battery: 11.89 V, "discharged" in the BCI rest table (TRADE.md); scaled by system voltage. */
 export const DISCHARGED_VOLTS_PER_12 = 11.89;
 
+/**
+ * The span each sized fault mode covers in a real vehicle (TRADE.md, "Tolerances"): a corroded or
+ * loose joint is anything from a fraction of an ohm to effectively open, a chafed short from near
+ * 0 Ω to a few ohms (common practice); a drifting stabilizer's set-point anywhere outside the
+ * healthy 9.5–10.5 V per 12 V (enthusiast pages, TRADE.md) — the factor ends are invented. A
+ * suspect stands for its whole span; the sweep values only sample it.
+ */
+export const FAULT_SIZE_RANGES = {
+	/** Ω added in series. */
+	resistive: { low: 0.3, high: 5000 },
+	/** Ω from the node to the chassis. */
+	short: { low: 0.01, high: 3 },
+	/** Factor on the set-point. */
+	'stabilizer:low': { low: 0.4, high: 0.93 },
+	'stabilizer:high': { low: 1.07, high: 1.6 }
+} as const;
+
+/** The size range of a hypothesis's fault mode, or null for a fault with one size (open, blown, stuck). */
+export function sizeRange(h: Pick<Hypothesis, 'kind' | 'changes'>): { low: number; high: number } | null {
+	if (h.kind === 'node:short') return FAULT_SIZE_RANGES.short;
+	if (h.kind === 'stabilizer:low' || h.kind === 'stabilizer:high') return FAULT_SIZE_RANGES[h.kind];
+	const c = h.changes[0];
+	return c && c.type === 'element' && c.series && c.ohms !== null ? FAULT_SIZE_RANGES.resistive : null;
+}
+
+/** A sized hypothesis's changes with its fault at `size` (Ω, or the set-point factor); others unchanged. */
+export function atSize(h: Pick<Hypothesis, 'kind' | 'changes'>, size: number): Change[] {
+	if (!sizeRange(h)) return h.changes;
+	return h.changes.map((c, i) => {
+		if (i > 0) return c;
+		if (c.type === 'element' || c.type === 'to-chassis') return { ...c, ohms: size };
+		if (c.type === 'stabilizer') return { ...c, factor: size };
+		return c;
+	});
+}
+
 /** Where a fault is, in the restorer's terms. */
 export interface FaultPlace {
 	part?: string;
