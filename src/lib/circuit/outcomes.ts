@@ -9,6 +9,11 @@
 // told apart by the probe when their intervals do not overlap: |a − b| > t(a) + t(b), so no
 // single reading is consistent with both.
 //
+// Bands. In a real vehicle a suspect's reading is not one number: the battery's state, part
+// tolerances, guessed wire lengths and the fault's own size move it (diagnose.ts works out the
+// span). With a band [lo, hi] the acceptance interval is [lo − t(lo), hi + t(hi)]; everything
+// below works on acceptance intervals, so a point reading is the band [r, r].
+//
 // Bins. A probe's bins are the connected components of the "intervals overlap" graph over the
 // suspects that have a defined reading: sort the intervals by their low end and merge while the
 // next one starts at or below the running high end (the classic interval-union sweep). Each bin
@@ -52,6 +57,12 @@ export type PredictionTable = {
 	suspects: Suspect[];
 	probes: ProbeCandidate[];
 	readings: (number | null)[][];
+	/**
+	 * The span each reading can take in a real vehicle (battery state, part tolerances, the
+	 * fault's size; see diagnose.ts), same shape as `readings`; a missing table or entry is the
+	 * point reading itself. The meter's tolerance is added at the span's ends.
+	 */
+	bands?: (ReadingRange | null)[][];
 };
 
 export type ReadingRange = { low: number; high: number };
@@ -139,10 +150,32 @@ export function toleranceAt(tolerance: Tolerance, reading: number): number {
 	return tolerance.abs + tolerance.rel * Math.abs(reading) + (tolerance.band ?? 0);
 }
 
-/** The readings consistent with a predicted one. */
-export function acceptRange(tolerance: Tolerance, predicted: number): ReadingRange {
-	const t = toleranceAt(tolerance, predicted);
-	return { low: predicted - t, high: predicted + t };
+/** The readings consistent with a predicted one, or with any reading of its span `band`. */
+export function acceptRange(tolerance: Tolerance, predicted: number, band?: ReadingRange | null): ReadingRange {
+	const low = band ? Math.min(band.low, predicted) : predicted;
+	const high = band ? Math.max(band.high, predicted) : predicted;
+	return { low: low - toleranceAt(tolerance, low), high: high + toleranceAt(tolerance, high) };
+}
+
+/** The acceptance interval of suspect `s` on probe `p` of a table (its band widened by the meter's tolerance), or null when unread. */
+export function acceptOf(table: PredictionTable, p: number, s: number): ReadingRange | null {
+	const r = table.readings[p][s];
+	return r === null || r === undefined ? null : acceptRange(table.probes[p].tolerance, r, table.bands?.[p]?.[s]);
+}
+
+/** How far a measured reading lies beyond an acceptance interval (0 inside it). */
+export function beyond(accept: ReadingRange, measured: number): number {
+	return measured < accept.low ? accept.low - measured : measured > accept.high ? measured - accept.high : 0;
+}
+
+/** The table restricted to some suspects (in the given order). */
+export function subTable(table: PredictionTable, suspects: readonly number[]): PredictionTable {
+	return {
+		suspects: suspects.map((s) => table.suspects[s]),
+		probes: table.probes,
+		readings: table.readings.map((row) => suspects.map((s) => row[s])),
+		...(table.bands ? { bands: table.bands.map((row) => suspects.map((s) => row[s])) } : {})
+	};
 }
 
 /** True when a measured reading is within tolerance of a predicted one. */
@@ -163,7 +196,7 @@ export function toldApart(tolerance: Tolerance, a: number, b: number): boolean {
  * binReadings([12.6, 0, 12.55], { abs: 0.02, rel: 0.005 });
  * // → bins [{ suspects: [1] … }, { suspects: [0, 2] … }], unread []
  */
-export function binReadings(readings: readonly (number | null)[], tolerance: Tolerance, among?: readonly number[]): ProbeOutcomes {
+export function binReadings(readings: readonly (number | null)[], tolerance: Tolerance, among?: readonly number[], bands?: readonly (ReadingRange | null)[]): ProbeOutcomes {
 	const members = among ?? readings.map((_, i) => i);
 	const unread: number[] = [];
 	const items: { s: number; r: number; low: number; high: number }[] = [];
@@ -173,8 +206,8 @@ export function binReadings(readings: readonly (number | null)[], tolerance: Tol
 			unread.push(s);
 			continue;
 		}
-		const t = toleranceAt(tolerance, r);
-		items.push({ s, r, low: r - t, high: r + t });
+		const a = acceptRange(tolerance, r, bands?.[s]);
+		items.push({ s, r, low: a.low, high: a.high });
 	}
 	items.sort((x, y) => x.low - y.low || x.s - y.s);
 	const bins: OutcomeBin[] = [];
@@ -197,7 +230,7 @@ export function binReadings(readings: readonly (number | null)[], tolerance: Tol
 
 /** Bins of probe `probe` of a table, over `among` suspects (all when omitted). */
 export function probeOutcomes(table: PredictionTable, probe: number, among?: readonly number[]): ProbeOutcomes {
-	return binReadings(table.readings[probe], table.probes[probe].tolerance, among);
+	return binReadings(table.readings[probe], table.probes[probe].tolerance, among, table.bands?.[probe]);
 }
 
 /**
@@ -216,10 +249,10 @@ export function placeReading(outcomes: ProbeOutcomes, measured: number): number 
  * earliest-right-end greedy of interval scheduling). Bins of any subset of suspects never number
  * more than this.
  */
-export function maxOutcomes(readings: readonly (number | null)[], tolerance: Tolerance): number {
+export function maxOutcomes(readings: readonly (number | null)[], tolerance: Tolerance, bands?: readonly (ReadingRange | null)[]): number {
 	const iv = readings
-		.filter((r): r is number => r !== null && r !== undefined)
-		.map((r) => acceptRange(tolerance, r))
+		.map((r, s) => (r === null || r === undefined ? null : acceptRange(tolerance, r, bands?.[s])))
+		.filter((a): a is ReadingRange => a !== null)
 		.sort((a, b) => a.high - b.high);
 	let count = 0;
 	let end = -Infinity;

@@ -22,7 +22,7 @@
 // is maximised over λ (concave in λ, so a one-dimensional search finds its top).
 import { ambiguityClasses } from './cover';
 import { huffmanExpectedLength } from './huffman';
-import { checkTable, maxOutcomes, toldApart, type PredictionTable } from './outcomes';
+import { acceptOf, checkTable, maxOutcomes, subTable, type PredictionTable } from './outcomes';
 
 export type SeparationBound = {
 	/** Lower bound on the expected number of probes: the larger of the Huffman bound and the separation bound. */
@@ -143,7 +143,7 @@ export function separationLowerBound(table: PredictionTable, options: { weights?
 	const total = raw.reduce((a, b) => a + b, 0);
 	const w = raw.map((x) => x / total);
 	const members = table.suspects.map((_, s) => s).filter((s) => w[s] > 0);
-	const sub: PredictionTable = { suspects: members.map((s) => table.suspects[s]), probes: table.probes, readings: table.readings.map((r) => members.map((s) => r[s])) };
+	const sub = subTable(table, members);
 	const classes = ambiguityClasses(sub).map((c) => c.map((i) => members[i]));
 	const classOf = new Int32Array(n).fill(-1);
 	classes.forEach((c, k) => c.forEach((s) => (classOf[s] = k)));
@@ -156,17 +156,17 @@ export function separationLowerBound(table: PredictionTable, options: { weights?
 	const memo = new Map<string, { p: number; c: number }>();
 	for (const s of members) {
 		// Suspects with the same readings everywhere and the same class need the same covers.
-		const key = classOf[s] + '|' + table.readings.map((r) => r[s]).join(',');
+		const key = classOf[s] + '|' + table.readings.map((r, p) => `${r[s]}~${table.bands?.[p]?.[s]?.low}~${table.bands?.[p]?.[s]?.high}`).join(',');
 		let got = memo.get(key);
 		if (!got) {
 			const others = members.filter((t) => classOf[t] !== classOf[s]);
 			const words = Math.max(1, Math.ceil(others.length / 32));
-			const sets = table.probes.map((probe, p) => {
+			const sets = table.probes.map((_, p) => {
 				const set = new Uint32Array(words);
-				const a = table.readings[p][s];
+				const a = acceptOf(table, p, s);
 				others.forEach((t, e) => {
-					const b = table.readings[p][t];
-					if (b !== null && (a === null || toldApart(probe.tolerance, a, b))) set[e >>> 5] |= 1 << (e & 31);
+					const b = acceptOf(table, p, t);
+					if (b !== null && (a === null || b.high < a.low || a.high < b.low)) set[e >>> 5] |= 1 << (e & 31);
 				});
 				return set;
 			});
@@ -182,7 +182,7 @@ export function separationLowerBound(table: PredictionTable, options: { weights?
 	const separationProbes = members.reduce((a, s) => a + w[s] * dProbes[s], 0);
 	const separationCost = members.reduce((a, s) => a + w[s] * dCost[s], 0);
 	let K = 1;
-	table.probes.forEach((p, i) => (K = Math.max(K, maxOutcomes(sub.readings[i], p.tolerance))));
+	table.probes.forEach((p, i) => (K = Math.max(K, maxOutcomes(sub.readings[i], p.tolerance, sub.bands?.[i]))));
 	const chances = classes.map((c) => c.reduce((a, s) => a + w[s], 0));
 	const huffman = K > 1 ? huffmanExpectedLength(chances, K) : 0;
 	const lagrange = floorBound(

@@ -6,7 +6,7 @@
 // A point is the suspects still in play with their absolute chances (of being the fault and of
 // the plan reaching this point). A suspect with no defined reading on the probe follows every
 // outcome at its weight ÷ K (K the number of bins there), as plan.ts describes.
-import { toleranceAt, type PredictionTable } from './outcomes';
+import { acceptRange, type PredictionTable } from './outcomes';
 
 /** Per-probe precomputation: acceptance intervals and each suspect's rank by low end. */
 export type Prepared = {
@@ -39,9 +39,9 @@ export function prepare(table: PredictionTable): Prepared {
 				hasNull = true;
 				continue;
 			}
-			const t = toleranceAt(probe.tolerance, r);
-			lo[s] = r - t;
-			hi[s] = r + t;
+			const a = acceptRange(probe.tolerance, r, table.bands?.[p]?.[s]);
+			lo[s] = a.low;
+			hi[s] = a.high;
 			defined.push(s);
 		}
 		// Same order as binReadings: low end, then suspect index.

@@ -196,10 +196,11 @@ describe('replan', () => {
 		]
 	};
 
-	it('drops suspects whose prediction is outside tolerance of the reading', () => {
-		// 10.4 V: healthy |0.4| ≤ 1.07 stays; low output |2.4| > 1.06, stuck closed |2.2| > 1.083
-		// and stuck open go. "Gauge open" has no defined feed reading: it stays, at weight ÷ K.
-		// K = 3 bins: healthy (8.93–11.07) and low output (6.94–9.06) overlap and share one.
+	it('drops suspects whose prediction is far outside tolerance of the reading', () => {
+		// 10.4 V: healthy |0.4| ≤ 1.07 stays. Low output's interval ends at 9.06 V: 1.34 V short,
+		// σ = 0.072 (meter at 10.4 V) + 5 % of its 2.12 V width = 0.178, z = 7.5, fit ≈ 10⁻¹²;
+		// stuck closed (from 11.517 V) and stuck open go the same way. "Gauge open" has no defined
+		// feed reading: it stays, at weight ÷ K, K = 3 bins (healthy and low output overlap).
 		// Chances 1 : 1/3 → 0.75 and 0.25.
 		const r = replan(gauges, [{ probe: 'gauge feed', reading: 10.4 }]);
 		expect(r.remaining).toEqual([
@@ -213,27 +214,60 @@ describe('replan', () => {
 		expect(r.table.suspects.map((s) => s.id)).toEqual(['healthy', 'gauge open']);
 	});
 
-	it('keeps both suspects a reading cannot split', () => {
-		// 9.0 V: healthy |1.0| ≤ 1.07 and low output |1.0| ≤ 1.06 both stay.
+	it('keeps both suspects a reading cannot split, at their prior odds', () => {
+		// 9.0 V: healthy |1.0| ≤ 1.07 and low output |1.0| ≤ 1.06 both hold it: neither is favoured.
 		const r = replan(gauges, [{ probe: 'gauge feed', reading: 9 }]);
 		expect(r.remaining.map((s) => s.suspect)).toEqual(['healthy', 'low output', 'gauge open']);
+		expect(r.remaining[0].chance).toBeCloseTo(r.remaining[1].chance, 12);
 	});
 
-	it('reports a reading no suspect predicts and leaves the suspects as they were', () => {
-		// 3 V on the sender wire: predictions are 0, 5, 6, 7 V (±0.02–0.055 V).
+	it('lowers a suspect a reading falls just beyond, without removing it', () => {
+		// Sender wire 6.08 V: healthy (6 V, accepts 5.95–6.05) is 0.03 V short. σ = 0.0504 (meter)
+		// + 5 % of 0.1 = 0.0554, z = 0.54; stuck closed (7 V, from 6.945) is 0.865 V off, z = 15.
+		// No interval holds the reading, so it is reported, and the suspects are weighed against
+		// the nearest: healthy keeps fit 1, stuck closed is out.
+		const r = replan(gauges, [{ probe: 'sender wire', reading: 6.08 }]);
+		expect(r.remaining[0]).toEqual({ suspect: 'healthy', chance: 1, outside: true });
+		expect(r.unexplained).toEqual([{ probe: 'sender wire', reading: 6.08, reason: 'no suspect predicts it', nearest: ['healthy'] }]);
+		// Inside the interval near its edge: 6.04 V is held, and 7 V's suspect is ruled out.
+		const inside = replan(gauges, [{ probe: 'sender wire', reading: 6.04 }]);
+		expect(inside.unexplained).toEqual([]);
+		expect(inside.remaining.map((x) => x.suspect)).toEqual(['healthy']);
+	});
+
+	it('weighs a reading inside a suspect\'s band as fully consistent (bands widen the interval)', () => {
+		// A battery at rest spans 11.89–12.65 V (BCI table at 80 °F, TRADE.md); a run-down one
+		// reads 11.2–11.6 V (invented band). 12.2 V lies inside the first band: no longer refused.
+		const t: PredictionTable = {
+			suspects: [{ id: 'healthy', prior: 1 }, { id: 'run down', prior: 1 }],
+			probes: [{ id: 'battery', cost: 1, tolerance: dmm20V, unit: 'V' }],
+			readings: [[12.6, 11.4]],
+			bands: [[{ low: 11.89, high: 12.65 }, { low: 11.2, high: 11.6 }]]
+		};
+		const r = replan(t, [{ probe: 'battery', reading: 12.2 }]);
+		expect(r.unexplained).toEqual([]);
+		expect(r.remaining.map((x) => x.suspect)).toEqual(['healthy']);
+		// Without the band, 12.2 V is 0.32 V from 12.6 V (t = 0.083): the reading would be outside.
+		const point = replan({ ...t, bands: undefined }, [{ probe: 'battery', reading: 12.2 }]);
+		expect(point.unexplained).toHaveLength(1);
+	});
+
+	it('reports a reading no suspect predicts and goes on with the nearest suspects', () => {
+		// 3 V on the sender wire: predictions are 0, 5, 6, 7 V (±0.02–0.055 V). The nearest, low
+		// output at 5 V, is 1.955 V away; σ widens to that, so healthy (2.95 V) keeps fit 0.53,
+		// stuck closed (3.945 V) 0.21: nobody is ruled out by a reading the model cannot place.
 		const r = replan(gauges, [{ probe: 'sender wire', reading: 3 }]);
-		expect(r.unexplained).toEqual([{ probe: 'sender wire', reading: 3, reason: 'no suspect predicts it' }]);
+		expect(r.unexplained).toEqual([{ probe: 'sender wire', reading: 3, reason: 'no suspect predicts it', nearest: ['healthy', 'stuck open', 'low output', 'gauge open'] }]);
 		expect(r.remaining).toHaveLength(5);
+		expect(r.remaining[0].suspect).toBe('low output');
+		expect(r.remaining.every((x) => x.outside)).toBe(true);
 		expect(r.dropped).toEqual([]);
-		// On the gauge feed, 5 V fits no defined prediction, but "gauge open" has none there and a
-		// reading cannot rule it out: it is the one left.
-		expect(replan(gauges, [{ probe: 'gauge feed', reading: 5 }]).remaining.map((s) => s.suspect)).toEqual(['gauge open']);
 		// 7 V on the sender wire is what "stuck closed" predicts, ruled out by 10.4 V already.
 		const later = replan(gauges, [
 			{ probe: 'gauge feed', reading: 10.4 },
 			{ probe: 'sender wire', reading: 7 }
 		]);
-		expect(later.unexplained).toEqual([{ probe: 'sender wire', reading: 7, reason: 'contradicts the earlier readings' }]);
+		expect(later.unexplained).toEqual([{ probe: 'sender wire', reading: 7, reason: 'contradicts the earlier readings', nearest: ['healthy'] }]);
 	});
 
 	it('plans without a probe reported unreachable', () => {

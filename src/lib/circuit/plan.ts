@@ -27,9 +27,12 @@ import { huffmanExpectedLength } from './huffman';
 import { PlanSearch, type Objective, type SearchLimits } from './plan-search';
 import { prepare, type State } from './plan-split';
 import {
+	acceptOf,
 	binReadings,
+	subTable,
 	checkTable,
-	consistent,
+	beyond,
+	toleranceAt,
 	formatRange,
 	maxOutcomes,
 	type OutcomeBin,
@@ -50,6 +53,8 @@ export type PlanOptions = {
 	objective?: Objective;
 	/** Limits of the lookahead (plan-search.ts); false for the one-step rule alone. */
 	lookahead?: SearchLimits | false;
+	/** A probe id the plan takes first whatever it tells apart (the battery's own voltage). */
+	first?: string;
 };
 
 export { huffmanExpectedLength };
@@ -149,6 +154,7 @@ export function buildPlan(table: PredictionTable, options: PlanOptions = {}): Pl
 	const prep = prepare(table);
 	const probes = table.probes.map((_, p) => p).filter((p) => available[p]);
 	const search = new PlanSearch(table, prep, probes, objective, options.lookahead || {});
+	const firstProbe = options.first !== undefined && available[table.probes.findIndex((q) => q.id === options.first)] ? table.probes.findIndex((q) => q.id === options.first) : -1;
 	const pick = (s: State) => (options.lookahead === false ? search.greedyPick(s, false) : search.choose(s));
 
 	// Weights are absolute chances of (suspect, reaching this point), in the order of `members`.
@@ -200,7 +206,7 @@ export function buildPlan(table: PredictionTable, options: PlanOptions = {}): Pl
 		}
 		// The depth and size limits are checked before the lookahead, which is the costly part.
 		const limited = at.depth >= maxDepth || steps >= maxSteps;
-		const chosen = limited ? search.greedyPick(at, false) : pick(at);
+		const chosen = firstProbe >= 0 && at.depth === 0 && !limited ? { probe: firstProbe, gain: 0 } : limited ? search.greedyPick(at, false) : pick(at);
 		if (!chosen) {
 			at.place({ ...base, kind: 'ambiguous' });
 			continue;
@@ -211,7 +217,7 @@ export function buildPlan(table: PredictionTable, options: PlanOptions = {}): Pl
 		}
 		const best = chosen.probe;
 		steps++;
-		const { bins, unread } = binReadings(table.readings[best], table.probes[best].tolerance, at.members);
+		const { bins, unread } = binReadings(table.readings[best], table.probes[best].tolerance, at.members, table.bands?.[best]);
 		const kids = search.split(at, best);
 		if (kids.length !== bins.length) throw new Error(`buildPlan: internal error: ${kids.length} outcomes against ${bins.length} bins on probe "${table.probes[best].id}"`);
 		const step: PlanStep = {
@@ -381,7 +387,7 @@ export function expectedProbesLowerBound(table: PredictionTable, options: Pick<P
 	}
 	let K = 1;
 	sub.probes.forEach((p, i) => {
-		if (available[i]) K = Math.max(K, maxOutcomes(sub.readings[i], p.tolerance));
+		if (available[i]) K = Math.max(K, maxOutcomes(sub.readings[i], p.tolerance, sub.bands?.[i]));
 	});
 	return { probes: K > 1 ? h / Math.log2(K) : 0, entropyBits: h, maxOutcomes: K };
 }
@@ -424,7 +430,7 @@ export function huffmanLowerBound(table: PredictionTable, options: Pick<PlanOpti
 		.filter((m) => m > 0);
 	let K = 1;
 	sub.probes.forEach((p, i) => {
-		if (available[i]) K = Math.max(K, maxOutcomes(sub.readings[i], p.tolerance));
+		if (available[i]) K = Math.max(K, maxOutcomes(sub.readings[i], p.tolerance, sub.bands?.[i]));
 	});
 	return { probes: K > 1 ? huffmanExpectedLength(chances, K) : 0, maxOutcomes: K, classes: chances.length };
 }
@@ -491,11 +497,12 @@ export function pointByPointWalk(table: PredictionTable, order: readonly string[
 			if (located()) break;
 			taken++;
 			spent += table.probes[p].cost;
-			const x = table.readings[p][s];
+			const x = acceptOf(table, p, s);
 			if (x === null) continue;
+			// Suspect s's readings span x; the walk keeps whoever could show some reading of it.
 			left = left.filter((t) => {
-				const r = table.readings[p][t];
-				return r === null || consistent(table.probes[p].tolerance, r, x);
+				const r = acceptOf(table, p, t);
+				return r === null || (r.low <= x.high && x.low <= r.high);
 			});
 		}
 		if (!located()) unlocatedMass += w[s];
@@ -505,26 +512,22 @@ export function pointByPointWalk(table: PredictionTable, order: readonly string[
 	return { expectedProbes, expectedCost, unlocatedMass };
 }
 
-/** The table restricted to some suspects (in the given order). */
-export function subTable(table: PredictionTable, suspects: readonly number[]): PredictionTable {
-	return {
-		suspects: suspects.map((s) => table.suspects[s]),
-		probes: table.probes,
-		readings: table.readings.map((row) => suspects.map((s) => row[s]))
-	};
-}
+export { subTable };
 
 // ---- Planning again from real readings ----
 
 export type ReadingTaken = { probe: string; reading: number } | { probe: string; unreachable: true };
 
+/** A suspect whose fit to a reading falls below this is ruled out by it (a reading about 3.7 tolerances beyond its span). */
+export const DROP_FIT = 1e-3;
+
 export type ReplanResult = {
-	/** Suspects still in play with their chances (renormalised), likeliest first. */
-	remaining: { suspect: string; chance: number }[];
+	/** Suspects still in play with their chances (renormalised), likeliest first; `outside` when a reading lies beyond its span. */
+	remaining: { suspect: string; chance: number; outside?: boolean }[];
 	/** Suspects ruled out, and by which reading. */
 	dropped: { suspect: string; probe: string; reading: number }[];
-	/** Readings no remaining suspect predicts; they were not used to rule anything out. */
-	unexplained: { probe: string; reading: number; reason: 'no suspect predicts it' | 'contradicts the earlier readings' }[];
+	/** Readings no remaining suspect's span holds: kept and weighed against the nearest suspects, never used to rule them all out. */
+	unexplained: { probe: string; reading: number; reason: 'no suspect predicts it' | 'contradicts the earlier readings'; nearest: string[] }[];
 	/** Probes reported as not reachable; the new plan does without them. */
 	unavailable: string[];
 	/** The table of the remaining suspects, which the new plan's indices refer to. */
@@ -534,11 +537,21 @@ export type ReplanResult = {
 };
 
 /**
- * Filters the suspects by the readings taken so far and plans again from the ones left. A
- * reading rules out every suspect whose prediction it is not within tolerance of (suspects
- * with no defined reading stay, at weight ÷ K as in the plan). A reading that no remaining
- * suspect predicts is reported and left out. A probe reported unreachable is left out of the
- * new plan.
+ * Weighs the suspects by the readings taken so far and plans again from the ones left.
+ *
+ * Each reading x multiplies a suspect's weight by its fit: 1 anywhere inside its acceptance
+ * interval (its span widened by the meter's tolerance), and beyond it exp(−z²/2) with z the
+ * distance past the nearer end over σ = the meter's accuracy at x (without a pulsing band, which
+ * the interval holds already) plus 5 % of the interval's width (the model's own error grows with
+ * the span). So a reading near an edge lowers a suspect, one about 3.7 σ beyond rules it out
+ * (DROP_FIT), and two suspects whose spans both hold the reading keep their prior odds: nothing
+ * becomes certain on a difference the meter and the model cannot tell.
+ *
+ * A reading that no remaining suspect's interval holds is information, not an error: it is
+ * reported with the nearest suspects, and the model is taken to be off by at least the nearest
+ * one's distance d₀ (σ widened to d₀), so the suspects are weighed by how much farther they are
+ * and the diagnosis goes on with the nearest ones, marked `outside`. Suspects with no defined
+ * reading stay, at weight ÷ K as in the plan. A probe reported unreachable is left out.
  */
 export function replan(table: PredictionTable, readingsTaken: readonly ReadingTaken[], options: PlanOptions = {}): ReplanResult {
 	checkTable(table, 'replan');
@@ -546,6 +559,7 @@ export function replan(table: PredictionTable, readingsTaken: readonly ReadingTa
 	const unavailable = new Set(options.exclude ?? []);
 	const dropped: ReplanResult['dropped'] = [];
 	const unexplained: ReplanResult['unexplained'] = [];
+	const outside = new Set<number>();
 	readingsTaken.forEach((taken, i) => {
 		const p = table.probes.findIndex((q) => q.id === taken?.probe);
 		if (p < 0) throw new Error(`replan: readingsTaken[${i}].probe names probe "${taken?.probe}", which is not in the table`);
@@ -555,23 +569,40 @@ export function replan(table: PredictionTable, readingsTaken: readonly ReadingTa
 		}
 		const x = taken.reading;
 		if (!Number.isFinite(x)) throw new Error(`replan: readingsTaken[${i}].reading must be a finite number, got ${x}`);
-		const tol = table.probes[p].tolerance;
-		const row = table.readings[p];
+		const { abs, rel } = table.probes[p].tolerance;
+		const meter = abs + rel * Math.abs(x);
 		const live = table.suspects.map((_, s) => s).filter((s) => w[s] > 0);
-		const fits = live.filter((s) => row[s] !== null && consistent(tol, row[s]!, x));
-		const unread = live.filter((s) => row[s] === null);
-		if (fits.length + unread.length === 0) {
-			const anyone = table.suspects.some((_, s) => row[s] !== null && consistent(tol, row[s]!, x));
-			unexplained.push({ probe: taken.probe, reading: x, reason: anyone ? 'contradicts the earlier readings' : 'no suspect predicts it' });
-			return;
-		}
-		const K = binReadings(row, tol, live).bins.length;
-		const keep = new Set(fits);
+		const far = new Map<number, { d: number; sigma: number }>();
 		for (const s of live) {
-			if (row[s] === null) w[s] /= Math.max(1, K);
-			else if (!keep.has(s)) {
+			const a = acceptOf(table, p, s);
+			if (a) far.set(s, { d: beyond(a, x), sigma: meter + 0.05 * (a.high - a.low) });
+		}
+		if (!far.size) return;
+		const d0 = Math.min(...[...far.values()].map((f) => f.d));
+		const z = (f: { d: number; sigma: number }) => f.d / Math.max(f.sigma, d0, 1e-12);
+		const z0 = Math.min(...[...far.values()].map(z));
+		const fit = (s: number) => Math.exp(-0.5 * (z(far.get(s)!) ** 2 - z0 * z0));
+		if (d0 > 0) {
+			const anyone = table.suspects.some((_, s) => {
+				const a = acceptOf(table, p, s);
+				return a !== null && beyond(a, x) === 0;
+			});
+			const nearest = [...far.keys()].filter((s) => fit(s) >= 0.5);
+			unexplained.push({ probe: taken.probe, reading: x, reason: anyone ? 'contradicts the earlier readings' : 'no suspect predicts it', nearest: nearest.map((s) => table.suspects[s].id) });
+		}
+		const K = binReadings(table.readings[p], table.probes[p].tolerance, live, table.bands?.[p]).bins.length;
+		for (const s of live) {
+			if (!far.has(s)) {
+				w[s] /= Math.max(1, K);
+				continue;
+			}
+			const f = fit(s);
+			if (f < DROP_FIT) {
 				w[s] = 0;
 				dropped.push({ suspect: table.suspects[s].id, probe: taken.probe, reading: x });
+			} else {
+				w[s] *= f;
+				if (d0 > 0) outside.add(s);
 			}
 		}
 	});
@@ -580,7 +611,9 @@ export function replan(table: PredictionTable, readingsTaken: readonly ReadingTa
 	const sub = subTable(table, members);
 	const plan = buildPlan(sub, { ...options, exclude: [...unavailable], weights: members.map((s) => w[s] / total) });
 	return {
-		remaining: members.map((s) => ({ suspect: table.suspects[s].id, chance: w[s] / total })).sort((a, b) => b.chance - a.chance),
+		remaining: members
+			.map((s) => ({ suspect: table.suspects[s].id, chance: w[s] / total, ...(outside.has(s) ? { outside: true } : {}) }))
+			.sort((a, b) => b.chance - a.chance),
 		dropped,
 		unexplained,
 		unavailable: [...unavailable],
