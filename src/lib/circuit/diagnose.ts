@@ -11,7 +11,8 @@
  */
 import { buildCircuit, type Circuit } from './circuit';
 import { minimalProbeSet } from './cover';
-import { FAULT_KINDS, generateHypotheses, regionOf, type Change, type FaultKind, type Hypothesis } from './faults';
+import { bandAt, emfFromReading, SPREAD_MARGIN, type EmfRange, type Spread } from './bands';
+import { atSize, FAULT_KINDS, generateHypotheses, regionOf, SIZE_GRIDS, sizeRange, type Change, type FaultKind, type Hypothesis } from './faults';
 import { ENTRY_DMM, type MeterProfile } from './meter-profiles';
 import type { PredictionTable } from './outcomes';
 import { buildPlan, checklist, replan, type ReadingTaken } from './plan';
@@ -21,6 +22,8 @@ import type { Location } from './parts';
 import type { Scenario } from './scenario';
 import type { HarnessDocument } from './schema';
 import { explain, observedElement, quantity, type Judged, type PartMark } from './symptoms';
+import { batteryRange, CHARGE_BELOW_PER_12, factorWorlds, uncertaintyOf, withBattery, type UncertaintyInput } from './uncertainty';
+import { planningView, type ReadingRange } from './outcomes';
 
 /** A double fault's prior relative to the product of its two single priors (invented: two faults at once are rare). */
 export const DOUBLE_FAULT_FACTOR = 0.05;
@@ -39,7 +42,12 @@ export interface DiagnoseInput {
 	tools?: readonly ProbeKind[];
 	/** Probe ids to consider only (default all candidates). */
 	onlyProbes?: readonly string[];
+	/** What is not known exactly (battery, part tolerances, wire lengths, senders); defaults from TRADE.md. */
+	uncertainty?: UncertaintyInput;
 }
+
+/** Widening of each mark's band of ratios (symptoms.ts markFits): a person's "reads low" is a judgement. Invented. */
+export const MARK_SLACK = 0.08;
 
 export interface SuspectOut {
 	id: string;
@@ -53,6 +61,24 @@ export interface SuspectOut {
 	fit: number;
 	place: Hypothesis['place'][];
 	ohms?: number;
+	/** The fault sizes that explain the marks (Ω, or the stabilizer set-point factor): the suspect stands for all of them. */
+	size?: { low: number; high: number };
+}
+
+/** The main battery as the diagnosis sees it. */
+export interface BatteryState {
+	/** The probe across its posts (taken first in a powered plan). */
+	probe: string;
+	part: string;
+	/** The EMF range assumed until it is read (V). */
+	assumed: { low: number; high: number };
+	/** Once read: the reading and the EMF it implies (healthy harness). */
+	measured?: number;
+	emf?: number;
+	/** The EMF below which it should be charged first: 12.0 V per 12 V at rest (BCI table; common practice); null while running. */
+	chargeBelow: number | null;
+	/** Read below `chargeBelow`: charge the battery before going on. */
+	charge: boolean;
 }
 
 export interface DiagnoseResult {
@@ -67,8 +93,12 @@ export interface DiagnoseResult {
 	readings?: { remaining: { suspect: string; chance: number }[]; dropped: { suspect: string; probe: string; reading: number }[]; unexplained: { probe: string; reading: number; reason: string }[]; unavailable: string[] };
 	notes: string[];
 	fallbacks: FallbackCount;
-	/** The prediction table the plan was made from (suspects × probes). */
+	/** The prediction table the plan was made from (suspects × probes), with each reading's band. */
 	table: PredictionTable;
+	/** The main battery: its probe, the EMF assumed, and what its reading said. */
+	battery: BatteryState | null;
+	/** How each reading moves with the battery and everything else (bands.ts): lets a battery reading narrow the bands without a solve. */
+	spread: { emf: EmfRange; rows: (Spread | null)[][]; healthy: (Spread | null)[] } | null;
 }
 
 export class DiagnoseError extends Error {
@@ -86,6 +116,8 @@ interface Candidate {
 	place: Hypothesis['place'][];
 	site: string;
 	ohms?: number;
+	/** The fault's size in this variant (Ω or set-point factor) when its mode has a range. */
+	size?: number;
 }
 
 /** Add a fuse the fault overloads (current above its rating) as blown, until none is. */
@@ -145,9 +177,35 @@ export function probeReadings(
 	return { readings, healthy };
 }
 
+/** Fault kinds that can raise a current and so blow a fuse; added resistance and opens only lower the battery's load. */
+const RAISES_CURRENT = /short|stuck|stabilizer:high/;
+
+/** A marks world: the circuit the marks are judged in (nominal, or a sender at one end of its travel). */
+interface MarksWorld {
+	c: Circuit;
+	base: Base;
+}
+
+/** The grid of sizes a sized fault mode is sampled at, or null. */
+function gridOf(h: Pick<Hypothesis, 'kind' | 'changes'>): readonly number[] | null {
+	if (!sizeRange(h)) return null;
+	if (h.kind === 'node:short') return SIZE_GRIDS.short;
+	if (h.kind === 'stabilizer:low' || h.kind === 'stabilizer:high') return SIZE_GRIDS[h.kind];
+	return SIZE_GRIDS.resistive;
+}
+
+/** "about 20 Ω" → the span that fits, in the label a restorer reads. */
+function sizeText(kind: FaultKind | 'double', low: number, high: number): string {
+	const n = (x: number) => (x >= 10 ? x.toFixed(0) : x >= 1 ? x.toFixed(1).replace(/\.0$/, '') : String(Number(x.toPrecision(2))));
+	if (kind === 'stabilizer:low' || kind === 'stabilizer:high') return low === high ? `about ${Math.round(low * 100)} % of its setting` : `${Math.round(low * 100)}–${Math.round(high * 100)} % of its setting`;
+	return low === high ? `about ${n(low)} Ω` : `${n(low)}–${n(high)} Ω`;
+}
+
 export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	const { doc, scenario } = input;
 	const profile = input.meter ?? ENTRY_DMM;
+	const u = uncertaintyOf(input.uncertainty);
+	let t0 = performance.now(); const T = (k: string) => { if (process.env.LOOM_PROFILE) console.log(k, (performance.now() - t0).toFixed(0)); t0 = performance.now(); };
 	const parts = new Map(doc.parts.map((p) => [p.id, p]));
 	const c = buildCircuit(doc, scenario);
 	const issues: { path: string; message: string }[] = [];
@@ -164,10 +222,12 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	const notes: string[] = [CAUTIONS.general];
 	const fallbacks = emptyFallbacks();
 	const base = new Base(c);
-	const healthy = observed.map((o) => {
-		const e = c.elements[o.element];
-		return quantity(o.judged, base.g[o.element], base.solution.at(e.a) - base.solution.at(e.b));
-	});
+	const healthyOf = (w: MarksWorld) =>
+		observed.map((o) => {
+			const e = w.c.elements[o.element];
+			return quantity(o.judged, w.base.g[o.element], w.base.solution.at(e.a) - w.base.solution.at(e.b));
+		});
+	const healthy = healthyOf({ c, base });
 	// Marks on a part that draws nothing in this scenario cannot be judged.
 	const used: number[] = [];
 	input.marks.forEach((m, i) => {
@@ -180,37 +240,68 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	const meters: Meter[] = used.map((i) => ({ kind: 'current', element: observed[i].element }));
 	const abnormal = marks.filter((m) => m.mark !== 'normal').map((m) => m.part);
 	const region = regionOf(doc, scenario, abnormal.length ? abnormal : marks.map((m) => m.part));
-	const singles: Candidate[] = generateHypotheses(c, { region, weights: input.weights }).map((h) =>
-		settleFuses(base, c, { id: h.id, label: h.label, kind: h.kind, prior: h.prior, changes: h.changes, place: [h.place], site: h.site, ohms: h.ohms })
-	);
 
+	// Every size a sized mode can have, sampled on its grid (faults.ts SIZE_GRIDS).
+	const variants: Candidate[] = [];
+	for (const h of generateHypotheses(c, { region, weights: input.weights, sweep: SIZE_GRIDS.resistive })) {
+		const grid = h.kind === 'node:short' || h.kind === 'stabilizer:low' || h.kind === 'stabilizer:high' ? gridOf(h) : null;
+		const sized = grid ? grid.map((size) => ({ ...h, id: `${h.site}:${size}`, changes: atSize(h, size), size })) : [{ ...h, ...(h.ohms !== undefined ? { size: h.ohms } : {}) }];
+		for (const v of sized) {
+			const cand: Candidate = { id: v.id, label: v.label, kind: v.kind, prior: v.prior, changes: v.changes, place: [v.place], site: v.site, ohms: v.ohms, size: v.size };
+			variants.push(RAISES_CURRENT.test(v.kind) ? settleFuses(base, c, cand) : cand);
+		}
+	}
+
+	// The marks are judged in the nominal harness and with each unknown sender at either end of
+	// its travel: how far a gauge drops for a given joint depends on the sender in series with it.
+	const marksWorlds: MarksWorld[] = [{ c, base }];
+	for (const w of factorWorlds(doc, scenario, u)) {
+		if (!w.id.startsWith('sender:') || !region.parts.has(w.id.split(':')[1])) continue;
+		const cw = buildCircuit(w.doc, w.scenario);
+		marksWorlds.push({ c: cw, base: new Base(cw) });
+	}
 	// Lamps are judged by power: from the current, P = I²/g of the filament as faulted.
-	const lampPower = (h: Candidate, mi: number, amps: number) => {
+	const lampPower = (w: MarksWorld, h: Candidate, mi: number, amps: number) => {
 		const k = observed[used[mi]].element;
-		let g = base.g[k];
-		for (const ch of h.changes) if (ch.type === 'element' && ch.element === k) g = ch.ohms === null ? 0 : 1 / (ch.series ? 1 / c.elements[k].gClosed + ch.ohms : ch.ohms);
+		let g = w.base.g[k];
+		for (const ch of h.changes) if (ch.type === 'element' && ch.element === k) g = ch.ohms === null ? 0 : 1 / (ch.series ? 1 / w.c.elements[k].gClosed + ch.ohms : ch.ohms);
 		return g > 0 ? (amps * amps) / g : 0;
 	};
-	const evaluate = (cands: Candidate[]) => {
-		const rows = predictReadings(base, cands, meters, fallbacks);
+	const evaluate = (cands: Candidate[], worlds: readonly MarksWorld[]) => {
+		const per = worlds.map((w) => {
+			const h0 = healthyOf(w);
+			const rows = predictReadings(w.base, cands, meters, fallbacks);
+			return cands.map((h, hi) =>
+				explain(
+					{ kind: h.kind === 'double' ? 'joint:resistive' : h.kind },
+					marks,
+					judged,
+					used.map((_, mi) => {
+						const amps = Math.abs(rows[mi][hi]);
+						const q = judged[mi] === 'lamp' ? lampPower(w, h, mi, amps) : amps;
+						return h0[used[mi]] > 1e-12 ? q / h0[used[mi]] : 1;
+					}),
+					MARK_SLACK
+				)
+			);
+		});
+		// Explained in some world; fit as in the nominal one where it explains there, else the best world's.
 		return cands.map((h, hi) => {
-			const ratios = used.map((_, mi) => {
-				const amps = Math.abs(rows[mi][hi]);
-				const q = judged[mi] === 'lamp' ? lampPower(h, mi, amps) : amps;
-				return q / healthy[used[mi]];
-			});
-			return { h, ratios, ex: explain({ kind: h.kind === 'double' ? 'joint:resistive' : h.kind }, marks, judged, ratios) };
+			const ok = per.map((p) => p[hi]).filter((x) => x.explains);
+			return { h, explains: ok.length > 0, fit: per[0][hi].explains ? per[0][hi].fit : Math.max(0, ...ok.map((x) => x.fit)), predicted: per[0][hi].predicted };
 		});
 	};
-	let evaluated = evaluate(singles);
+	T('variants');
+	let evaluated = evaluate(variants, marksWorlds);
+	T('marks');
 	let explainedBy: DiagnoseResult['explainedBy'] = 'single';
-	let found = evaluated.filter((e) => e.ex.explains);
+	let found = evaluated.filter((e) => e.explains);
 	if (!found.length && abnormal.length) {
 		explainedBy = 'double';
 		notes.push('No single fault explains every mark: double faults over the region are offered instead.');
 		// Pool: singles that move at least one abnormal mark the marked way.
 		const pool = evaluated
-			.filter((e) => marks.some((m, i) => m.mark !== 'normal' && (m.mark === 'erratic' ? e.ex.predicted[i] !== 'normal' : e.ex.predicted[i] === m.mark)))
+			.filter((e) => marks.some((m, i) => m.mark !== 'normal' && (m.mark === 'erratic' ? e.predicted[i] !== 'normal' : e.predicted[i] === m.mark)))
 			.sort((a, b) => b.h.prior - a.h.prior);
 		const bestPerSite = new Map<string, (typeof pool)[number]>();
 		for (const e of pool) if (!bestPerSite.has(e.h.site)) bestPerSite.set(e.h.site, e);
@@ -222,33 +313,48 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 				const b = top[j];
 				pairs.push({ id: `${a.id}+${b.id}`, label: `${a.label}; and ${b.label}`, kind: 'double', prior: a.prior * b.prior * DOUBLE_FAULT_FACTOR, changes: [...a.changes, ...b.changes], place: [...a.place, ...b.place], site: `${a.site}+${b.site}` });
 			}
-		evaluated = evaluate(pairs);
-		found = evaluated.filter((e) => e.ex.explains);
+		evaluated = evaluate(pairs, [marksWorlds[0]]);
+		found = evaluated.filter((e) => e.explains);
 		if (!found.length) {
 			explainedBy = 'none';
 			notes.push('No single or double fault of the region explains the marks: check the marks, the scenario (switch and sender positions) and the diagram.');
 		}
 	}
-	// One suspect per site: the sweep value that fits best.
-	const perSite = new Map<string, (typeof found)[number]>();
-	for (const e of found) {
-		const prev = perSite.get(e.h.site);
-		if (!prev || e.ex.fit > prev.ex.fit) perSite.set(e.h.site, e);
+
+	// One suspect per site, standing for every size that explains the marks. Its span of sizes
+	// reaches one grid step past them on each side, so a true size between the last sample that
+	// explains and the first that does not still lies inside its band.
+	const bySite = new Map<string, (typeof evaluated)[number][]>();
+	for (const e of evaluated) (bySite.get(e.h.site) ?? bySite.set(e.h.site, []).get(e.h.site)!).push(e);
+	type Chosen = { rep: Candidate; fit: number; span: Candidate[]; size?: { low: number; high: number } };
+	const chosenAll: Chosen[] = [];
+	for (const list of bySite.values()) {
+		const ok = list.map((e, i) => (e.explains ? i : -1)).filter((i) => i >= 0);
+		if (!ok.length) continue;
+		const best = ok.reduce((a, i) => (list[i].fit > list[a].fit ? i : a), ok[0]);
+		const first = ok[0];
+		const last = ok[ok.length - 1];
+		const rep = list[best].h;
+		const span = list.slice(Math.max(0, first - 1), Math.min(list.length, last + 2)).map((e) => e.h);
+		const size = rep.size !== undefined && list.length > 1 ? { low: list[first].h.size!, high: list[last].h.size! } : undefined;
+		const label = size ? `${rep.label.replace(/, about [\d.]+ Ω$/, '')}, ${sizeText(rep.kind, size.low, size.high)}` : rep.label;
+		chosenAll.push({ rep: { ...rep, id: size ? rep.site : rep.id, label }, fit: list[best].fit, span: size ? span : [], size });
 	}
-	const chosen = [...perSite.values()].sort((a, b) => b.h.prior * b.ex.fit - a.h.prior * a.ex.fit);
-	const total = chosen.reduce((s, e) => s + e.h.prior * e.ex.fit, 0);
+	const chosen = chosenAll.sort((a, b) => b.rep.prior * b.fit - a.rep.prior * a.fit);
+	const total = chosen.reduce((s, e) => s + e.rep.prior * e.fit, 0);
 	const suspects: SuspectOut[] = chosen.map((e) => ({
-		id: e.h.id,
-		site: e.h.site,
-		label: e.h.label,
-		kind: e.h.kind,
-		chance: (e.h.prior * e.ex.fit) / total,
-		prior: e.h.prior,
-		fit: e.ex.fit,
-		place: e.h.place,
-		...(e.h.ohms !== undefined ? { ohms: e.h.ohms } : {})
+		id: e.rep.id,
+		site: e.rep.site,
+		label: e.rep.label,
+		kind: e.rep.kind,
+		chance: (e.rep.prior * e.fit) / total,
+		prior: e.rep.prior,
+		fit: e.fit,
+		place: e.rep.place,
+		...(e.rep.ohms !== undefined ? { ohms: e.rep.ohms } : {}),
+		...(e.size ? { size: e.size } : {})
 	}));
-	const cands = chosen.map((e) => e.h);
+	const cands = chosen.map((e) => e.rep);
 
 	// Probes and their readings under every suspect, one base per setup.
 	const partOut = marks.filter((m) => m.mark !== 'normal').map((m) => m.part);
@@ -257,53 +363,132 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		const only = new Set(input.onlyProbes);
 		specs = specs.filter((s) => only.has(s.id));
 	}
-	const { readings, healthy: healthyReading } = probeReadings(doc, scenario, c, base, cands, specs, profile, fallbacks);
-	const round = (x: number) => Math.round(x * 1e6) / 1e6;
+	const spanCands = chosen.flatMap((e) => e.span);
+	T('probes');
+	const nominalRun = probeReadings(doc, scenario, c, base, [...cands, ...spanCands], specs, profile, fallbacks);
+	T('nominal+span');
+	const readings = nominalRun.readings.map((row) => row.slice(0, cands.length));
+	const healthyReading = nominalRun.healthy;
+
+	// Bands (bands.ts): every other group of uncertain values at each end, the battery at three EMFs.
+	const bat = batteryRange(doc, scenario, u);
+	const emf: EmfRange | null = bat ? { low: bat.low, nominal: bat.nominal, high: bat.high } : null;
+	const solveWorld = (wdoc: HarnessDocument, wsc: Scenario) => {
+		const cw = buildCircuit(wdoc, wsc);
+		return probeReadings(wdoc, wsc, cw, new Base(cw), cands, specs, profile, fallbacks);
+	};
+	const groups = new Map<string, { readings: number[][]; healthy: number[] }[]>();
+	for (const w of factorWorlds(doc, scenario, u)) {
+		const g = w.id.slice(0, w.id.lastIndexOf(':'));
+		(groups.get(g) ?? groups.set(g, []).get(g)!).push(solveWorld(w.doc, w.scenario));
+	}
+	const ends = [...groups.values()];
+	// The band at the nominal EMF: over the suspect's representative and the sizes of its span that
+	// read lowest and highest, each moved by every group. A group moves a sample by its deviation
+	// on the healthy harness plus the part due to the fault scaled by the sample's own effect
+	// (ρ = its change from healthy over the representative's): a larger joint's drop moves more
+	// with the lamp's current, a dead feed reads 0 V whatever the battery.
+	const nominalBand = (p: number, h: number): ReadingRange => {
+		const h0 = healthyReading[p];
+		const rep = h < cands.length ? readings[p][h] : h0;
+		const samples = [rep];
+		if (h < cands.length) {
+			const e = chosen[h];
+			let at = cands.length + chosen.slice(0, h).reduce((a, x) => a + x.span.length, 0);
+			let lo = Infinity;
+			let hi = -Infinity;
+			for (let k = 0; k < e.span.length; k++, at++) {
+				lo = Math.min(lo, nominalRun.readings[p][at]);
+				hi = Math.max(hi, nominalRun.readings[p][at]);
+			}
+			if (e.span.length) samples.push(lo, hi);
+		}
+		let low = Infinity;
+		let high = -Infinity;
+		for (const r of samples) {
+			const effect = rep - h0;
+			const rho = Math.abs(effect) < 1e-6 ? 1 : Math.max(-10, Math.min(10, (r - h0) / effect));
+			let down = 0;
+			let up = 0;
+			for (const runs of ends) {
+				let dmin = 0;
+				let dmax = 0;
+				for (const run of runs) {
+					const hd = run.healthy[p] - h0;
+					const rd = (h < cands.length ? run.readings[p][h] : run.healthy[p]) - rep;
+					const d = (1 - rho) * hd + rho * rd;
+					dmin = Math.min(dmin, d);
+					dmax = Math.max(dmax, d);
+				}
+				down -= dmin;
+				up += dmax;
+			}
+			low = Math.min(low, r - SPREAD_MARGIN * down);
+			high = Math.max(high, r + SPREAD_MARGIN * up);
+		}
+		return { low, high };
+	};
+	const lowRun = emf ? solveWorld(withBattery(doc, scenario, emf.low), scenario) : null;
+	const highRun = emf ? solveWorld(withBattery(doc, scenario, emf.high), scenario) : null;
+	const spreadOf = (p: number, h: number): Spread => {
+		const nominal = h < cands.length ? readings[p][h] : healthyReading[p];
+		const pick = (run: typeof lowRun) => (run ? (h < cands.length ? run.readings[p][h] : run.healthy[p]) : nominal);
+		const b = nominalBand(p, h);
+		return { atLow: round(pick(lowRun)), atHigh: round(pick(highRun)), low: round(b.low), high: round(b.high) };
+	};
+	const spread = {
+		emf: emf ?? { low: 0, nominal: 0, high: 0 },
+		rows: specs.map((_, p) => cands.map((_, h) => spreadOf(p, h))),
+		healthy: specs.map((_, p) => spreadOf(p, cands.length))
+	};
+	const batteryProbe = bat ? specs.find((s) => s.kind === 'volts' && s.setup === 'as-given' && s.place.part === bat.part.id && s.place.to === 'earth') : undefined;
+	const battery: BatteryState | null =
+		bat && batteryProbe ? { probe: batteryProbe.id, part: bat.part.id, assumed: { low: bat.low, high: bat.high }, chargeBelow: scenario.engineRunning ? null : (CHARGE_BELOW_PER_12 * doc.vehicle.systemVoltage) / 12, charge: false } : null;
+
 	const table: PredictionTable = {
 		suspects: suspects.map((s) => ({ id: s.id, prior: s.chance, label: s.label })),
 		probes: specs.map((s) => ({ id: s.id, cost: s.cost, tolerance: s.tolerance, label: s.label, unit: s.unit })),
-		readings: readings.map((row) => row.map(round))
+		readings: readings.map((row) => row.map(round)),
+		bands: specs.map((_, p) => cands.map((_, h) => roundBand(bandAt(readings[p][h], spread.rows[p][h], spread.emf, spread.emf.low, spread.emf.high))))
 	};
 	const probesOut = specs.map((s, i) => {
 		const { meter: _m, order: _o, ...rest } = s;
 		void _m;
 		void _o;
-		return { ...rest, healthy: round(healthyReading[i]), expected: suspects.map((su, j) => ({ suspect: su.id, reading: table.readings[i][j] as number })) };
-	});
-	if (!suspects.length) {
 		return {
-			suspects,
-			explainedBy,
-			probes: probesOut,
-			minimalSet: { probes: [], cost: 0, exact: true },
-			ambiguityGroups: [],
-			plan: { steps: [], expectedProbes: 0, expectedCost: 0 },
-			notes,
-			fallbacks,
-			table
+			...rest,
+			healthy: round(healthyReading[i]),
+			healthyBand: roundBand(bandAt(healthyReading[i], spread.healthy[i]!, spread.emf, spread.emf.low, spread.emf.high)),
+			expected: suspects.map((su, j) => ({ suspect: su.id, reading: table.readings[i][j] as number }))
 		};
-	}
-	const cover = minimalProbeSet(table);
-	const plan = buildPlan(table);
+	});
 	const result: DiagnoseResult = {
 		suspects,
 		explainedBy,
 		probes: probesOut,
-		minimalSet: { probes: cover.probes, cost: cover.cost, exact: cover.exact },
-		ambiguityGroups: cover.ambiguityGroups,
-		plan: { steps: checklist(table, plan), expectedProbes: plan.expectedProbes, expectedCost: plan.expectedCost },
+		minimalSet: { probes: [], cost: 0, exact: true },
+		ambiguityGroups: [],
+		plan: { steps: [], expectedProbes: 0, expectedCost: 0 },
 		notes,
 		fallbacks,
-		table
+		table,
+		battery,
+		spread: emf ? spread : null
 	};
-	return input.readings && Object.keys(input.readings).length ? withReadings(result, input.readings, profile) : result;
+	T('rest');
+	if (!suspects.length) return result;
+	return withReadings(result, input.readings ?? {}, profile);
 }
 
+const round = (x: number) => Math.round(x * 1e6) / 1e6;
+const roundBand = (b: ReadingRange): ReadingRange => ({ low: round(b.low), high: round(b.high) });
+
 /**
- * A diagnosis planned again from readings taken: the suspects they contradict drop out and the
- * plan is made from the rest (plan.ts replan). Needs no circuit solve — the result's prediction
- * table holds every suspect's reading of every probe — so a result without readings can be kept
- * and planned again cheaply after each reading.
+ * A diagnosis planned again from readings taken: each reading weighs the suspects by how well it
+ * fits their bands (plan.ts replan), and the plan is made from the ones left. A battery reading
+ * first turns into each suspect's own EMF (bands.ts), narrowing every band. Needs no circuit
+ * solve — the result holds every suspect's reading of every probe and how it moves — so a result
+ * without readings can be kept and planned again cheaply after each reading.
  */
 export function withReadings(result: DiagnoseResult, readings: Readonly<Record<string, number | 'OL' | 'unreachable'>>, profile: MeterProfile = ENTRY_DMM): DiagnoseResult {
 	const taken: ReadingTaken[] = [];
@@ -319,12 +504,49 @@ export function withReadings(result: DiagnoseResult, readings: Readonly<Record<s
 		else taken.push({ probe, reading: value });
 	}
 	if (bad.length) throw new DiagnoseError(bad);
-	if (!result.suspects.length || !taken.length) return result;
-	const r = replan(result.table, taken);
+	if (!result.suspects.length) return result;
+	let table = result.table;
+	let battery = result.battery;
+	const batteryRead = battery ? readings[battery.probe] : undefined;
+	if (battery && result.spread && typeof batteryRead === 'number') {
+		const spread = result.spread;
+		const bp = table.probes.findIndex((q) => q.id === battery!.probe);
+		const tol = table.probes[bp].tolerance;
+		const t = tol.abs + tol.rel * Math.abs(batteryRead);
+		const healthyEmf = emfFromReading(result.probes[bp].healthy, spread.healthy[bp]!, spread.emf, batteryRead);
+		battery = {
+			...battery,
+			measured: batteryRead,
+			...(healthyEmf ? { emf: round(healthyEmf.emf) } : {}),
+			charge: !!healthyEmf && battery.chargeBelow !== null && healthyEmf.emf < battery.chargeBelow
+		};
+		const envelope = { low: Math.min(spread.emf.low, healthyEmf?.emf ?? Infinity), high: Math.max(spread.emf.high, healthyEmf?.emf ?? -Infinity) };
+		// Every band again at each suspect's own EMF (its battery reading includes its own load).
+		const bands = table.readings.map((row, p) =>
+			row.map((r, s) => {
+				if (r === null) return null;
+				const own = emfFromReading(table.readings[bp][s] as number, spread.rows[bp][s]!, spread.emf, batteryRead);
+				if (!own || p === bp) return table.bands?.[p]?.[s] ?? null;
+				// A suspect whose own load would put the battery outside its possible range is
+				// unlikely (the battery probe's band weighs it); its bands stay at a possible EMF.
+				const e = Math.min(envelope.high, Math.max(envelope.low, own.emf));
+				const de = t * own.perVolt;
+				return roundBand(bandAt(r, spread.rows[p][s]!, spread.emf, e - de, e + de));
+			})
+		);
+		table = { ...table, bands };
+	}
+	const first = battery && battery.measured === undefined && readings[battery.probe] === undefined ? battery.probe : undefined;
+	const r = replan(table, taken, first ? { first } : {});
+	if (process.env.LOOM_DEBUG) (globalThis as Record<string, unknown>).__lastTable = r.table;
+	const cover = minimalProbeSet(planningView(r.table));
 	return {
 		...result,
+		battery,
+		minimalSet: { probes: cover.probes, cost: cover.cost, exact: cover.exact },
+		ambiguityGroups: cover.ambiguityGroups,
 		plan: { steps: checklist(r.table, r.plan), expectedProbes: r.plan.expectedProbes, expectedCost: r.plan.expectedCost },
-		readings: { remaining: r.remaining, dropped: r.dropped, unexplained: r.unexplained, unavailable: r.unavailable }
+		...(taken.length ? { readings: { remaining: r.remaining, dropped: r.dropped, unexplained: r.unexplained, unavailable: r.unavailable } } : {})
 	};
 }
 

@@ -162,6 +162,18 @@ export const FAULT_SIZE_RANGES = {
 	'stabilizer:high': { low: 1.07, high: 1.6 }
 } as const;
 
+/**
+ * Sizes a diagnosis samples across each range (roughly even steps on a log scale for ohms): a
+ * suspect's span of readings is read off these, and between two samples a reading moves
+ * monotonically (one conductance changing: the Sherman–Morrison update is a Möbius function of it).
+ */
+export const SIZE_GRIDS = {
+	resistive: [0.3, 1, 3, 10, 20, 50, 150, 500, 5000],
+	short: [0.01, 0.1, 0.5, 1, 3],
+	'stabilizer:low': [0.4, 0.55, 0.7, 0.8, 0.88, 0.93],
+	'stabilizer:high': [1.07, 1.12, 1.2, 1.3, 1.45, 1.6]
+} as const;
+
 /** The size range of a hypothesis's fault mode, or null for a fault with one size (open, blown, stuck). */
 export function sizeRange(h: Pick<Hypothesis, 'kind' | 'changes'>): { low: number; high: number } | null {
 	if (h.kind === 'node:short') return FAULT_SIZE_RANGES.short;

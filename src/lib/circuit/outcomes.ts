@@ -178,6 +178,45 @@ export function subTable(table: PredictionTable, suspects: readonly number[]): P
 	};
 }
 
+/**
+ * The table as the planner should see it when readings are bands: on each probe, a suspect whose
+ * band bridges two groups of narrower bands is taken as unread there (it follows every outcome,
+ * as a suspect with no defined reading does), instead of merging the groups into one bin. Without
+ * this, one suspect whose reading could be anything (a short of unknown size) would make every
+ * probe useless for the rest. Greedy by width: each band, narrowest first, starts a group when it
+ * overlaps none, joins the one group it overlaps if that widens the group by half at most, and
+ * otherwise follows (it overlaps two groups, or would stretch one over its neighbours).
+ * Readings are still weighed against the real bands (plan.ts replan); only the plan's bins change.
+ */
+export function planningView(table: PredictionTable): PredictionTable {
+	if (!table.bands) return table;
+	let changed = false;
+	const readings = table.readings.map((row, p) => {
+		const items = row
+			.map((r, s) => {
+				const a = acceptOf(table, p, s);
+				return a ? { s, low: a.low, high: a.high } : null;
+			})
+			.filter((x): x is { s: number; low: number; high: number } => x !== null)
+			.sort((x, y) => x.high - x.low - (y.high - y.low) || x.s - y.s);
+		const groups: { low: number; high: number }[] = [];
+		const follow = new Set<number>();
+		for (const it of items) {
+			const over = groups.filter((g) => it.low <= g.high && g.low <= it.high);
+			if (over.length === 0) groups.push({ low: it.low, high: it.high });
+			else if (over.length === 1 && Math.max(over[0].high, it.high) - Math.min(over[0].low, it.low) <= 1.5 * (over[0].high - over[0].low)) {
+				const g = over[0];
+				g.low = Math.min(g.low, it.low);
+				g.high = Math.max(g.high, it.high);
+			} else follow.add(it.s);
+		}
+		if (!follow.size) return row;
+		changed = true;
+		return row.map((r, s) => (follow.has(s) ? null : r));
+	});
+	return changed ? { ...table, readings } : table;
+}
+
 /** True when a measured reading is within tolerance of a predicted one. */
 export function consistent(tolerance: Tolerance, predicted: number, measured: number): boolean {
 	return Math.abs(measured - predicted) <= toleranceAt(tolerance, predicted);

@@ -198,7 +198,7 @@ describe('replan', () => {
 
 	it('drops suspects whose prediction is far outside tolerance of the reading', () => {
 		// 10.4 V: healthy |0.4| ≤ 1.07 stays. Low output's interval ends at 9.06 V: 1.34 V short,
-		// σ = 0.072 (meter at 10.4 V) + 5 % of its 2.12 V width = 0.178, z = 7.5, fit ≈ 10⁻¹²;
+		// σ = 0.072 (meter at 10.4 V) + 1 % of 10.4 V (model) = 0.176, z = 7.6, fit ≈ 10⁻¹³;
 		// stuck closed (from 11.517 V) and stuck open go the same way. "Gauge open" has no defined
 		// feed reading: it stays, at weight ÷ K, K = 3 bins (healthy and low output overlap).
 		// Chances 1 : 1/3 → 0.75 and 0.25.
@@ -223,7 +223,7 @@ describe('replan', () => {
 
 	it('lowers a suspect a reading falls just beyond, without removing it', () => {
 		// Sender wire 6.08 V: healthy (6 V, accepts 5.95–6.05) is 0.03 V short. σ = 0.0504 (meter)
-		// + 5 % of 0.1 = 0.0554, z = 0.54; stuck closed (7 V, from 6.945) is 0.865 V off, z = 15.
+		// + 1 % of 6.08 = 0.111, z = 0.27; stuck closed (7 V, from 6.945) is 0.865 V off, z = 7.8.
 		// No interval holds the reading, so it is reported, and the suspects are weighed against
 		// the nearest: healthy keeps fit 1, stuck closed is out.
 		const r = replan(gauges, [{ probe: 'sender wire', reading: 6.08 }]);
@@ -237,12 +237,13 @@ describe('replan', () => {
 
 	it('weighs a reading inside a suspect\'s band as fully consistent (bands widen the interval)', () => {
 		// A battery at rest spans 11.89–12.65 V (BCI table at 80 °F, TRADE.md); a run-down one
-		// reads 11.2–11.6 V (invented band). 12.2 V lies inside the first band: no longer refused.
+		// reads 10.8–11.2 V (invented band). 12.2 V lies inside the first band: no longer refused,
+		// and 0.92 V beyond the second (σ = 0.203 V, z = 4.5): that one is ruled out.
 		const t: PredictionTable = {
 			suspects: [{ id: 'healthy', prior: 1 }, { id: 'run down', prior: 1 }],
 			probes: [{ id: 'battery', cost: 1, tolerance: dmm20V, unit: 'V' }],
-			readings: [[12.6, 11.4]],
-			bands: [[{ low: 11.89, high: 12.65 }, { low: 11.2, high: 11.6 }]]
+			readings: [[12.6, 11]],
+			bands: [[{ low: 11.89, high: 12.65 }, { low: 10.8, high: 11.2 }]]
 		};
 		const r = replan(t, [{ probe: 'battery', reading: 12.2 }]);
 		expect(r.unexplained).toEqual([]);

@@ -29,6 +29,7 @@ import { prepare, type State } from './plan-split';
 import {
 	acceptOf,
 	binReadings,
+	planningView,
 	subTable,
 	checkTable,
 	beyond,
@@ -542,8 +543,7 @@ export type ReplanResult = {
  * Each reading x multiplies a suspect's weight by its fit: 1 anywhere inside its acceptance
  * interval (its span widened by the meter's tolerance), and beyond it exp(−z²/2) with z the
  * distance past the nearer end over σ = the meter's accuracy at x (without a pulsing band, which
- * the interval holds already) plus 5 % of the interval's width (the model's own error grows with
- * the span). So a reading near an edge lowers a suspect, one about 3.7 σ beyond rules it out
+ * the interval holds already) plus 1 % of x for the model's own error. So a reading near an edge lowers a suspect, one about 3.7 σ beyond rules it out
  * (DROP_FIT), and two suspects whose spans both hold the reading keep their prior odds: nothing
  * becomes certain on a difference the meter and the model cannot tell.
  *
@@ -570,12 +570,13 @@ export function replan(table: PredictionTable, readingsTaken: readonly ReadingTa
 		const x = taken.reading;
 		if (!Number.isFinite(x)) throw new Error(`replan: readingsTaken[${i}].reading must be a finite number, got ${x}`);
 		const { abs, rel } = table.probes[p].tolerance;
-		const meter = abs + rel * Math.abs(x);
+		// The meter's accuracy plus 1 % of the reading for the model's own error (bands.ts is first order).
+		const meter = abs + rel * Math.abs(x) + 0.01 * Math.abs(x);
 		const live = table.suspects.map((_, s) => s).filter((s) => w[s] > 0);
 		const far = new Map<number, { d: number; sigma: number }>();
 		for (const s of live) {
 			const a = acceptOf(table, p, s);
-			if (a) far.set(s, { d: beyond(a, x), sigma: meter + 0.05 * (a.high - a.low) });
+			if (a) far.set(s, { d: beyond(a, x), sigma: meter });
 		}
 		if (!far.size) return;
 		const d0 = Math.min(...[...far.values()].map((f) => f.d));
@@ -609,7 +610,9 @@ export function replan(table: PredictionTable, readingsTaken: readonly ReadingTa
 	const members = table.suspects.map((_, s) => s).filter((s) => w[s] > 0);
 	const total = members.reduce((a, s) => a + w[s], 0);
 	const sub = subTable(table, members);
-	const plan = buildPlan(sub, { ...options, exclude: [...unavailable], weights: members.map((s) => w[s] / total) });
+	// A probe already read tells nothing more (take it again by entering a new reading).
+	const read = readingsTaken.filter((t) => !('unreachable' in t)).map((t) => t.probe);
+	const plan = buildPlan(planningView(sub), { ...options, exclude: [...new Set([...unavailable, ...read])], weights: members.map((s) => w[s] / total) });
 	return {
 		remaining: members
 			.map((s) => ({ suspect: table.suspects[s].id, chance: w[s] / total, ...(outside.has(s) ? { outside: true } : {}) }))

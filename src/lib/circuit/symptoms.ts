@@ -87,13 +87,27 @@ export interface Explanation {
 	predicted: Exclude<Mark, 'erratic'>[];
 }
 
-/** Does a hypothesis, with these ratios per mark, explain every mark? */
-export function explain(h: Pick<Hypothesis, 'kind'>, marks: readonly PartMark[], judged: readonly Judged[], ratios: readonly number[]): Explanation {
+/**
+ * Would a person who sees a part at `ratio` of its usual quantity give it this mark? The mark's
+ * band of ratios is widened by the factor 1 + slack at each edge: where a gauge 15 % off starts
+ * to look low is itself a judgement, and the healthy quantity a person remembers is not exact.
+ */
+export function markFits(judged: Judged, ratio: number, mark: Exclude<Mark, 'erratic'>, slack = 0): boolean {
+	const t = MARK_THRESHOLDS[judged];
+	const k = 1 + slack;
+	if (mark === 'dead') return ratio < t.dead * k;
+	if (mark === 'reads-low') return ratio >= t.dead / k && ratio < t.low * k;
+	if (mark === 'reads-high') return ratio > t.high / k;
+	return ratio >= t.low / k && ratio <= t.high * k;
+}
+
+/** Does a hypothesis, with these ratios per mark, explain every mark (each within `slack`, see markFits)? */
+export function explain(h: Pick<Hypothesis, 'kind'>, marks: readonly PartMark[], judged: readonly Judged[], ratios: readonly number[], slack = 0): Explanation {
 	let fit = 1;
 	let explains = true;
 	const predicted = marks.map((m, i) => {
 		const p = markOf(judged[i], ratios[i]);
-		const ok = m.mark === 'erratic' ? p !== 'normal' && INTERMITTENT_KINDS.has(h.kind as never) : m.mark === p;
+		const ok = m.mark === 'erratic' ? p !== 'normal' && INTERMITTENT_KINDS.has(h.kind as never) : markFits(judged[i], ratios[i], m.mark, slack);
 		if (!ok) explains = false;
 		fit *= clarity(judged[i], ratios[i]);
 		return p;

@@ -1,0 +1,140 @@
+/**
+ * What a restorer cannot know exactly, as ranges, and the "worlds" a diagnosis computes its
+ * reading bands from (diagnose.ts, bands.ts).
+ *
+ * Defaults (TRADE.md, "Tolerances for the uncertainty model"; each a setting):
+ * - battery EMF at rest 11.9–12.8 V per 12 V (BCI rest table, 11.89 V discharged to 12.65 V full,
+ *   plus a surface charge after driving); running 13.5–14.5 V per 12 V (alternator practice); or
+ *   the value measured at the posts once taken;
+ * - incandescent lamp wattage and gauge heater, coil and load resistances ±10 % (from memory);
+ * - wire lengths drawn from a manual ±50 % unless marked measured (our default);
+ * - senders: anywhere on their travel unless the restorer says the position is known;
+ * - a healthy stabilizer's average 9.5–10.5 V per 12 V (enthusiast pages).
+ *
+ * A world moves one group of these to one end of its range and leaves the rest nominal. The
+ * groups move together (every lamp brighter at once): a reading's deviation is then the sum of
+ * the groups' deviations to first order, which bands.ts adds up with a margin.
+ */
+import { z } from 'zod';
+import { resolveParams } from './parts';
+import type { Scenario } from './scenario';
+import type { HarnessDocument, Part } from './schema';
+
+const range = z.object({ low: z.number(), high: z.number() }).refine((r) => r.low <= r.high, 'low must not be above high');
+
+export const UncertaintySchema = z.object({
+	/** Battery EMF (V) range; default by engine state, scaled to the system voltage. */
+	battery: range.optional(),
+	/** Relative tolerance on lamp wattage. */
+	lampWatts: z.number().min(0).max(0.9).default(0.1),
+	/** Relative tolerance on gauge heaters, relay coils, motors, loads and resistors. */
+	partResistance: z.number().min(0).max(0.9).default(0.1),
+	/** Relative tolerance on wire lengths not marked measured. */
+	wireLength: z.number().min(0).max(0.9).default(0.5),
+	/** Wires whose length was measured: held at their drawn length. */
+	measuredWires: z.array(z.string()).default([]),
+	/** Senders whose position the restorer knows (the scenario's value is taken as it is). */
+	knownSenders: z.array(z.string()).default([]),
+	/** A healthy stabilizer's average output (V) per 12 V. */
+	stabilizer: range.default({ low: 9.5, high: 10.5 })
+});
+export type Uncertainty = z.output<typeof UncertaintySchema>;
+export type UncertaintyInput = z.input<typeof UncertaintySchema>;
+
+export const REST_EMF_PER_12 = { low: 11.9, high: 12.8 } as const;
+export const RUNNING_EMF_PER_12 = { low: 13.5, high: 14.5 } as const;
+/** Below this at rest (per 12 V) the battery should be charged before diagnosing (common practice, TRADE.md). */
+export const CHARGE_BELOW_PER_12 = 12.0;
+
+export function uncertaintyOf(input?: UncertaintyInput): Uncertainty {
+	return UncertaintySchema.parse(input ?? {});
+}
+
+/** The main battery: the part, the EMF the model assumes, and the range it may really have. */
+export function batteryRange(doc: HarnessDocument, scenario: Scenario, u: Uncertainty): { part: Part; nominal: number; low: number; high: number } | null {
+	const part = doc.parts.find((p) => p.kind === 'battery');
+	if (!part || part.kind !== 'battery') return null;
+	const p = resolveParams('battery', part.params, doc.vehicle);
+	const nominal = scenario.engineRunning ? p.chargingVoltage : p.emf;
+	const scale = doc.vehicle.systemVoltage / 12;
+	const r = u.battery ?? (scenario.engineRunning ? RUNNING_EMF_PER_12 : REST_EMF_PER_12);
+	const low = u.battery ? r.low : r.low * scale;
+	const high = u.battery ? r.high : r.high * scale;
+	return { part, nominal, low: Math.min(low, nominal), high: Math.max(high, nominal) };
+}
+
+/** The document and scenario with the main battery's EMF at `volts`. */
+export function withBattery(doc: HarnessDocument, scenario: Scenario, volts: number): HarnessDocument {
+	const key = scenario.engineRunning ? 'chargingVoltage' : 'emf';
+	let done = false;
+	return {
+		...doc,
+		parts: doc.parts.map((p) => {
+			if (done || p.kind !== 'battery') return p;
+			done = true;
+			return { ...p, params: { ...p.params, [key]: volts } } as Part;
+		})
+	};
+}
+
+export interface World {
+	/** The group moved and its end, e.g. `lamps:low`. */
+	id: string;
+	doc: HarnessDocument;
+	scenario: Scenario;
+}
+
+/** One world per group and end, battery aside (bands.ts treats the battery on its own). */
+export function factorWorlds(doc: HarnessDocument, scenario: Scenario, u: Uncertainty): World[] {
+	const worlds: World[] = [];
+	const scale = doc.vehicle.systemVoltage / 12;
+	const mapParts = (f: (p: Part) => Part | null): HarnessDocument | null => {
+		let changed = false;
+		const parts = doc.parts.map((p) => {
+			const q = f(p);
+			if (q) changed = true;
+			return q ?? p;
+		});
+		return changed ? { ...doc, parts } : null;
+	};
+	const resistanceKey: Partial<Record<Part['kind'], string>> = {
+		gauge: 'resistance',
+		relay: 'coilResistance',
+		motor: 'resistance',
+		load: 'resistance',
+		resistor: 'resistance',
+		'ignition-coil': 'primaryResistance'
+	};
+	for (const [end, sign] of [
+		['low', -1],
+		['high', 1]
+	] as const) {
+		if (u.lampWatts > 0) {
+			const d = mapParts((p) => (p.kind === 'lamp' ? ({ ...p, params: { ...p.params, watts: resolveParams('lamp', p.params, doc.vehicle).watts * (1 + sign * u.lampWatts) } } as Part) : null));
+			if (d) worlds.push({ id: `lamps:${end}`, doc: d, scenario });
+		}
+		if (u.partResistance > 0) {
+			const d = mapParts((p) => {
+				const key = resistanceKey[p.kind];
+				if (!key) return null;
+				const params = resolveParams(p.kind, p.params as never, doc.vehicle) as Record<string, number>;
+				return { ...p, params: { ...p.params, [key]: params[key] * (1 + sign * u.partResistance) } } as Part;
+			});
+			if (d) worlds.push({ id: `parts:${end}`, doc: d, scenario });
+		}
+		if (u.wireLength > 0) {
+			const measured = new Set(u.measuredWires);
+			if (doc.wires.some((w) => !measured.has(w.id)))
+				worlds.push({ id: `wires:${end}`, doc: { ...doc, wires: doc.wires.map((w) => (measured.has(w.id) ? w : { ...w, lengthM: w.lengthM * (1 + sign * u.wireLength) })) }, scenario });
+		}
+		const setPoint = (sign < 0 ? u.stabilizer.low : u.stabilizer.high) * scale;
+		const d = mapParts((p) => (p.kind === 'stabilizer' ? ({ ...p, params: { ...p.params, setPoint } } as Part) : null));
+		if (d) worlds.push({ id: `stabilizer:${end}`, doc: d, scenario });
+	}
+	const known = new Set(u.knownSenders);
+	for (const p of doc.parts) {
+		if (p.kind !== 'sender' || known.has(p.id)) continue;
+		for (const at of [0, 1]) worlds.push({ id: `sender:${p.id}:${at}`, doc, scenario: { ...scenario, senders: { ...scenario.senders, [p.id]: at } } });
+	}
+	return worlds;
+}
