@@ -12,7 +12,8 @@
 import { buildCircuit, type Circuit } from './circuit';
 import { minimalProbeSet } from './cover';
 import { bandAt, emfFromReading, SPREAD_MARGIN, type EmfRange, type Spread } from './bands';
-import { atSize, FAULT_KINDS, generateHypotheses, regionOf, SIZE_GRIDS, sizeRange, type Change, type FaultKind, type Hypothesis } from './faults';
+import { atSize, FAULT_KINDS, generateHypotheses, regionOf, SIZE_GRIDS, sizeRange, type Change, type FaultKind, type Hypothesis, type Region } from './faults';
+import { nodeOfTerminal } from './nets';
 import { ENTRY_DMM, type MeterProfile } from './meter-profiles';
 import type { PredictionTable } from './outcomes';
 import { buildPlan, checklist, replan, type ReadingTaken } from './plan';
@@ -24,6 +25,7 @@ import type { HarnessDocument } from './schema';
 import { explain, observedElement, quantity, type Judged, type PartMark } from './symptoms';
 import { batteryRange, CHARGE_BELOW_PER_12, factorWorlds, uncertaintyOf, withBattery, type UncertaintyInput } from './uncertainty';
 import { planningView, type ReadingRange } from './outcomes';
+import { groupAction } from './groups';
 
 /** A double fault's prior relative to the product of its two single priors (invented: two faults at once are rare). */
 export const DOUBLE_FAULT_FACTOR = 0.05;
@@ -65,6 +67,16 @@ export interface SuspectOut {
 	size?: { low: number; high: number };
 }
 
+/** A reading no suspect's band holds: kept, with the explanation that fits best. */
+export interface Unexplained {
+	probe: string;
+	reading: number;
+	reason: string;
+	/** The suspects nearest to it, which the diagnosis goes on with. */
+	nearest: string[];
+	explanation: { cause: 'battery' | 'two-faults' | 'differs'; text: string; pair?: [string, string] };
+}
+
 /** The main battery as the diagnosis sees it. */
 export interface BatteryState {
 	/** The probe across its posts (taken first in a powered plan). */
@@ -89,8 +101,15 @@ export interface DiagnoseResult {
 	minimalSet: { probes: string[]; cost: number; exact: boolean };
 	ambiguityGroups: string[][];
 	plan: { steps: ReturnType<typeof checklist>; expectedProbes: number; expectedCost: number };
-	/** After readings: what they ruled out and what is left. */
-	readings?: { remaining: { suspect: string; chance: number }[]; dropped: { suspect: string; probe: string; reading: number }[]; unexplained: { probe: string; reading: number; reason: string }[]; unavailable: string[] };
+	/** After readings: what they ruled out and what is left (`outside`: a reading lies beyond what it predicts). */
+	readings?: {
+		remaining: { suspect: string; chance: number; outside?: boolean }[];
+		dropped: { suspect: string; probe: string; reading: number }[];
+		unexplained: Unexplained[];
+		unavailable: string[];
+	};
+	/** Suspects no probe tells apart, each group with one job in the restorer's words (groups.ts); the last one is what is left when the plan ends on several. */
+	groups: { suspects: string[]; action: string; final?: boolean }[];
 	notes: string[];
 	fallbacks: FallbackCount;
 	/** The prediction table the plan was made from (suspects × probes), with each reading's band. */
@@ -205,7 +224,6 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	const { doc, scenario } = input;
 	const profile = input.meter ?? ENTRY_DMM;
 	const u = uncertaintyOf(input.uncertainty);
-	let t0 = performance.now(); const T = (k: string) => { if (process.env.LOOM_PROFILE) console.log(k, (performance.now() - t0).toFixed(0)); t0 = performance.now(); };
 	const parts = new Map(doc.parts.map((p) => [p.id, p]));
 	const c = buildCircuit(doc, scenario);
 	const issues: { path: string; message: string }[] = [];
@@ -255,8 +273,8 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	// The marks are judged in the nominal harness and with each unknown sender at either end of
 	// its travel: how far a gauge drops for a given joint depends on the sender in series with it.
 	const marksWorlds: MarksWorld[] = [{ c, base }];
-	for (const w of factorWorlds(doc, scenario, u)) {
-		if (!w.id.startsWith('sender:') || !region.parts.has(w.id.split(':')[1])) continue;
+	for (const w of factorWorlds(doc, scenario, u, region)) {
+		if (!w.id.startsWith('sender:')) continue;
 		const cw = buildCircuit(w.doc, w.scenario);
 		marksWorlds.push({ c: cw, base: new Base(cw) });
 	}
@@ -267,33 +285,39 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		for (const ch of h.changes) if (ch.type === 'element' && ch.element === k) g = ch.ohms === null ? 0 : 1 / (ch.series ? 1 / w.c.elements[k].gClosed + ch.ohms : ch.ohms);
 		return g > 0 ? (amps * amps) / g : 0;
 	};
-	const evaluate = (cands: Candidate[], worlds: readonly MarksWorld[]) => {
-		const per = worlds.map((w) => {
-			const h0 = healthyOf(w);
-			const rows = predictReadings(w.base, cands, meters, fallbacks);
-			return cands.map((h, hi) =>
-				explain(
-					{ kind: h.kind === 'double' ? 'joint:resistive' : h.kind },
-					marks,
-					judged,
-					used.map((_, mi) => {
-						const amps = Math.abs(rows[mi][hi]);
-						const q = judged[mi] === 'lamp' ? lampPower(w, h, mi, amps) : amps;
-						return h0[used[mi]] > 1e-12 ? q / h0[used[mi]] : 1;
-					}),
-					MARK_SLACK
-				)
-			);
-		});
-		// Explained in some world; fit as in the nominal one where it explains there, else the best world's.
+	const judge = (w: MarksWorld, cands: Candidate[], slacks: readonly number[]) => {
+		const h0 = healthyOf(w);
+		const rows = predictReadings(w.base, cands, meters, fallbacks);
 		return cands.map((h, hi) => {
-			const ok = per.map((p) => p[hi]).filter((x) => x.explains);
-			return { h, explains: ok.length > 0, fit: per[0][hi].explains ? per[0][hi].fit : Math.max(0, ...ok.map((x) => x.fit)), predicted: per[0][hi].predicted };
+			const ratios = used.map((_, mi) => {
+				const amps = Math.abs(rows[mi][hi]);
+				const q = judged[mi] === 'lamp' ? lampPower(w, h, mi, amps) : amps;
+				return h0[used[mi]] > 1e-12 ? q / h0[used[mi]] : 1;
+			});
+			return slacks.map((slack) => explain({ kind: h.kind === 'double' ? 'joint:resistive' : h.kind }, marks, judged, ratios, slack));
 		});
 	};
-	T('variants');
+	// Explained in some world; fit as in the nominal one where it explains there, else the best
+	// world's. The other worlds are judged only for what nearly explains in the nominal one (a
+	// sender's travel moves a gauge's ratio by a third at most): the rest cannot get there.
+	const evaluate = (cands: Candidate[], worlds: readonly MarksWorld[]) => {
+		const nominal = judge(worlds[0], cands, [MARK_SLACK, 0.35]);
+		const out = cands.map((h, hi) => ({ h, explains: nominal[hi][0].explains, fit: nominal[hi][0].explains ? nominal[hi][0].fit : 0, predicted: nominal[hi][0].predicted }));
+		const near = cands.map((_, hi) => hi).filter((hi) => !nominal[hi][0].explains && nominal[hi][1].explains);
+		if (near.length)
+			for (const w of worlds.slice(1)) {
+				const got = judge(w, near.map((hi) => cands[hi]), [MARK_SLACK]);
+				near.forEach((hi, k) => {
+					const x = got[k][0];
+					if (x.explains) {
+						out[hi].explains = true;
+						out[hi].fit = Math.max(out[hi].fit, x.fit);
+					}
+				});
+			}
+		return out;
+	};
 	let evaluated = evaluate(variants, marksWorlds);
-	T('marks');
 	let explainedBy: DiagnoseResult['explainedBy'] = 'single';
 	let found = evaluated.filter((e) => e.explains);
 	if (!found.length && abnormal.length) {
@@ -335,7 +359,10 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		const first = ok[0];
 		const last = ok[ok.length - 1];
 		const rep = list[best].h;
-		const span = list.slice(Math.max(0, first - 1), Math.min(list.length, last + 2)).map((e) => e.h);
+		// A reading moves monotonically with one element's resistance (faults.ts SIZE_GRIDS), so the
+		// span's two ends bound it.
+		const ends = [list[Math.max(0, first - 1)].h, list[Math.min(list.length - 1, last + 1)].h];
+		const span = ends[0] === ends[1] ? [ends[0]] : ends;
 		const size = rep.size !== undefined && list.length > 1 ? { low: list[first].h.size!, high: list[last].h.size! } : undefined;
 		const label = size ? `${rep.label.replace(/, about [\d.]+ Ω$/, '')}, ${sizeText(rep.kind, size.low, size.high)}` : rep.label;
 		chosenAll.push({ rep: { ...rep, id: size ? rep.site : rep.id, label }, fit: list[best].fit, span: size ? span : [], size });
@@ -364,9 +391,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		specs = specs.filter((s) => only.has(s.id));
 	}
 	const spanCands = chosen.flatMap((e) => e.span);
-	T('probes');
 	const nominalRun = probeReadings(doc, scenario, c, base, [...cands, ...spanCands], specs, profile, fallbacks);
-	T('nominal+span');
 	const readings = nominalRun.readings.map((row) => row.slice(0, cands.length));
 	const healthyReading = nominalRun.healthy;
 
@@ -378,7 +403,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		return probeReadings(wdoc, wsc, cw, new Base(cw), cands, specs, profile, fallbacks);
 	};
 	const groups = new Map<string, { readings: number[][]; healthy: number[] }[]>();
-	for (const w of factorWorlds(doc, scenario, u)) {
+	for (const w of factorWorlds(doc, scenario, u, region)) {
 		const g = w.id.slice(0, w.id.lastIndexOf(':'));
 		(groups.get(g) ?? groups.set(g, []).get(g)!).push(solveWorld(w.doc, w.scenario));
 	}
@@ -473,11 +498,11 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		fallbacks,
 		table,
 		battery,
-		spread: emf ? spread : null
+		spread: emf ? spread : null,
+		groups: []
 	};
-	T('rest');
 	if (!suspects.length) return result;
-	return withReadings(result, input.readings ?? {}, profile);
+	return explainPairs(input, withReadings(result, input.readings ?? {}, profile), input.readings ?? {});
 }
 
 const round = (x: number) => Math.round(x * 1e6) / 1e6;
@@ -538,16 +563,88 @@ export function withReadings(result: DiagnoseResult, readings: Readonly<Record<s
 	}
 	const first = battery && battery.measured === undefined && readings[battery.probe] === undefined ? battery.probe : undefined;
 	const r = replan(table, taken, first ? { first } : {});
-	if (process.env.LOOM_DEBUG) (globalThis as Record<string, unknown>).__lastTable = r.table;
 	const cover = minimalProbeSet(planningView(r.table));
+	const byId = new Map(result.suspects.map((x) => [x.id, x]));
+	const said = (ids: readonly string[]) => groupAction(ids.map((id) => byId.get(id)!).filter(Boolean));
+	const groups: DiagnoseResult['groups'] = cover.ambiguityGroups.map((g) => ({ suspects: g, action: said(g) }));
+	if (taken.length && r.plan.root.kind !== 'probe' && r.remaining.length > 1) {
+		const ids = r.remaining.map((x) => x.suspect);
+		groups.push({ suspects: ids, action: said(ids), final: true });
+	}
+	const unexplained: Unexplained[] = r.unexplained.map((x) => ({ ...x, explanation: explanationOf(result, battery, x.probe, taken) }));
 	return {
 		...result,
 		battery,
 		minimalSet: { probes: cover.probes, cost: cover.cost, exact: cover.exact },
 		ambiguityGroups: cover.ambiguityGroups,
+		groups,
 		plan: { steps: checklist(r.table, r.plan), expectedProbes: r.plan.expectedProbes, expectedCost: r.plan.expectedCost },
-		...(taken.length ? { readings: { remaining: r.remaining, dropped: r.dropped, unexplained: r.unexplained, unavailable: r.unavailable } } : {})
+		...(taken.length ? { readings: { remaining: r.remaining, dropped: r.dropped, unexplained, unavailable: r.unavailable } } : {})
 	};
+}
+
+export const DIFFERS_TEXT =
+	'No single fault of the drawing gives this reading. Check the probe contact and the meter setting and take it again; if it holds, the vehicle may differ from the drawing (a wire not drawn, a part of another value, a fuse of another rating) or two faults may be present. The diagnosis goes on with the nearest suspects, marked "outside what the drawing predicts".';
+
+/** The likeliest reason a reading lies outside every band, without solving again (pairs: `explainPairs`). */
+function explanationOf(result: DiagnoseResult, battery: BatteryState | null, probe: string, taken: readonly ReadingTaken[]): Unexplained['explanation'] {
+	const p = result.probes.findIndex((q) => q.id === probe);
+	const s = result.spread?.healthy[p];
+	const movesWithBattery = !!s && Math.abs(s.atHigh - s.atLow) > 0.05;
+	if (battery && movesWithBattery) {
+		if (battery.measured === undefined && !taken.some((t) => t.probe === battery.probe))
+			return { cause: 'battery', text: `The battery may not be where it was assumed (${battery.assumed.low.toFixed(1)}–${battery.assumed.high.toFixed(1)} V): read it at its posts first, and every expected reading is worked out again from it.` };
+		if (battery.charge)
+			return { cause: 'battery', text: `The battery reads ${Math.abs(battery.measured ?? 0).toFixed(2)} V, below ${battery.chargeBelow?.toFixed(1)} V: charge it, rest it some hours, and take the readings again.` };
+	}
+	return { cause: 'differs', text: DIFFERS_TEXT };
+}
+
+/** Most single suspects paired when looking for two faults behind readings no single one explains. */
+export const PAIR_POOL = 6;
+
+/**
+ * Readings no single suspect explains: do two of the leading suspects at once explain every
+ * reading taken? Solves the pairs of the PAIR_POOL likeliest remaining suspects on the probes
+ * read (a bounded check, and said so); a pair whose readings all fall within the meter's
+ * tolerance plus the model's 1 % becomes the unexplained readings' explanation.
+ */
+export function explainPairs(input: Pick<DiagnoseInput, 'doc' | 'scenario' | 'meter'>, result: DiagnoseResult, readings: Readonly<Record<string, number | 'OL' | 'unreachable'>>): DiagnoseResult {
+	if (!result.readings?.unexplained.length) return result;
+	const { doc, scenario } = input;
+	const profile = input.meter ?? ENTRY_DMM;
+	const c = buildCircuit(doc, scenario);
+	const base = new Base(c);
+	const hyps = new Map(generateHypotheses(c, { sweep: SIZE_GRIDS.resistive }).map((h) => [h.id, h]));
+	const bySite = new Map<string, Hypothesis>();
+	for (const h of hyps.values()) if (!bySite.has(h.site) || h.ohms === 20) bySite.set(h.site, h);
+	const lead = result.readings.remaining
+		.slice(0, PAIR_POOL)
+		.map((x) => result.suspects.find((s) => s.id === x.suspect))
+		.filter((s): s is SuspectOut => !!s && s.kind !== 'double')
+		.map((s) => ({ s, h: hyps.get(s.id) ?? bySite.get(s.site) }))
+		.filter((x): x is { s: SuspectOut; h: Hypothesis } => !!x.h);
+	const read = Object.entries(readings).filter((e): e is [string, number] => typeof e[1] === 'number');
+	const whole: Region = { parts: new Set(doc.parts.map((p) => p.id)), wires: new Set(doc.wires.map((w) => w.id)), nodes: new Set(doc.parts.flatMap((p) => p.terminals.map((t) => nodeOfTerminal(p, t)))) };
+	const specs = candidateProbes(doc, scenario, c, base.solution, whole, {
+		profile,
+		partOut: [...new Set(read.map(([id]) => id).filter((id) => /^(volts|lamp)-out:/.test(id)).map((id) => id.split(':')[1]))]
+	}).filter((sp) => read.some(([id]) => id === sp.id));
+	if (specs.length < read.length || lead.length < 2) return result;
+	const pairs: { a: SuspectOut; b: SuspectOut; changes: Change[] }[] = [];
+	for (let i = 0; i < lead.length; i++) for (let j = i + 1; j < lead.length; j++) pairs.push({ a: lead[i].s, b: lead[j].s, changes: [...lead[i].h.changes, ...lead[j].h.changes] });
+	const got = probeReadings(doc, scenario, c, base, pairs, specs, profile);
+	const fits = pairs.findIndex((_, k) =>
+		specs.every((sp, p) => {
+			const x = read.find(([id]) => id === sp.id)![1];
+			const r = got.readings[p][k];
+			return Math.abs(x - r) <= sp.tolerance.abs + sp.tolerance.rel * Math.abs(r) + (sp.tolerance.band ?? 0) + 0.01 * Math.abs(r);
+		})
+	);
+	if (fits < 0) return result;
+	const { a, b } = pairs[fits];
+	const explanation: Unexplained['explanation'] = { cause: 'two-faults', text: `Two faults at once fit every reading taken: ${a.label}, and ${b.label}. (Only pairs of the ${PAIR_POOL} likeliest suspects were tried.)`, pair: [a.id, b.id] };
+	return { ...result, readings: { ...result.readings, unexplained: result.readings.unexplained.map((u) => (u.explanation.cause === 'differs' ? { ...u, explanation } : u)) } };
 }
 
 export { FAULT_KINDS };

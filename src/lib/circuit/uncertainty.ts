@@ -12,7 +12,7 @@
  * - a healthy stabilizer's average 9.5–10.5 V per 12 V (enthusiast pages).
  *
  * A world moves one group of these to one end of its range and leaves the rest nominal. The
- * groups move together (every lamp brighter at once): a reading's deviation is then the sum of
+ * members of a group move together (every lamp and load drawing more at once): a reading's deviation is then the sum of
  * the groups' deviations to first order, which bands.ts adds up with a margin.
  */
 import { z } from 'zod';
@@ -84,8 +84,8 @@ export interface World {
 	scenario: Scenario;
 }
 
-/** One world per group and end, battery aside (bands.ts treats the battery on its own). */
-export function factorWorlds(doc: HarnessDocument, scenario: Scenario, u: Uncertainty): World[] {
+/** One world per group and end, battery aside (bands.ts treats the battery on its own); senders only those `within` the region. */
+export function factorWorlds(doc: HarnessDocument, scenario: Scenario, u: Uncertainty, within?: { parts: ReadonlySet<string> }): World[] {
 	const worlds: World[] = [];
 	const scale = doc.vehicle.systemVoltage / 12;
 	const mapParts = (f: (p: Part) => Part | null): HarnessDocument | null => {
@@ -109,18 +109,17 @@ export function factorWorlds(doc: HarnessDocument, scenario: Scenario, u: Uncert
 		['low', -1],
 		['high', 1]
 	] as const) {
-		if (u.lampWatts > 0) {
-			const d = mapParts((p) => (p.kind === 'lamp' ? ({ ...p, params: { ...p.params, watts: resolveParams('lamp', p.params, doc.vehicle).watts * (1 + sign * u.lampWatts) } } as Part) : null));
-			if (d) worlds.push({ id: `lamps:${end}`, doc: d, scenario });
-		}
-		if (u.partResistance > 0) {
+		// Lamps and other loads move together, all drawing more (or less) at once: through the feeds
+		// they share, that is the direction that moves a reading most.
+		if (u.lampWatts > 0 || u.partResistance > 0) {
 			const d = mapParts((p) => {
+				if (p.kind === 'lamp') return { ...p, params: { ...p.params, watts: resolveParams('lamp', p.params, doc.vehicle).watts * (1 + sign * u.lampWatts) } } as Part;
 				const key = resistanceKey[p.kind];
 				if (!key) return null;
 				const params = resolveParams(p.kind, p.params as never, doc.vehicle) as Record<string, number>;
-				return { ...p, params: { ...p.params, [key]: params[key] * (1 + sign * u.partResistance) } } as Part;
+				return { ...p, params: { ...p.params, [key]: params[key] / (1 + sign * u.partResistance) } } as Part;
 			});
-			if (d) worlds.push({ id: `parts:${end}`, doc: d, scenario });
+			if (d) worlds.push({ id: `loads:${end}`, doc: d, scenario });
 		}
 		if (u.wireLength > 0) {
 			const measured = new Set(u.measuredWires);
@@ -133,7 +132,8 @@ export function factorWorlds(doc: HarnessDocument, scenario: Scenario, u: Uncert
 	}
 	const known = new Set(u.knownSenders);
 	for (const p of doc.parts) {
-		if (p.kind !== 'sender' || known.has(p.id)) continue;
+		// A sender outside the region feeds nothing the diagnosis reads.
+		if (p.kind !== 'sender' || known.has(p.id) || (within && !within.parts.has(p.id))) continue;
 		for (const at of [0, 1]) worlds.push({ id: `sender:${p.id}:${at}`, doc, scenario: { ...scenario, senders: { ...scenario.senders, [p.id]: at } } });
 	}
 	return worlds;

@@ -1,7 +1,7 @@
 // A stored diagnosis as the planner sees it: the marks, scenario and meter it was started with,
 // and the readings taken so far (the latest of each probe counts; struck ones do not). Runs the
 // same in the server (API, checklist, PDF) and in the browser (the diagnosis page, offline too).
-import { diagnose, withReadings, type DiagnoseResult } from '../circuit/diagnose';
+import { diagnose, explainPairs, withReadings, type DiagnoseResult } from '../circuit/diagnose';
 import { ENTRY_DMM, METER_PROFILES, MeterProfileSchema, type MeterProfile } from '../circuit/meter-profiles';
 import type { Scenario } from '../circuit/scenario';
 import type { HarnessDocument } from '../circuit/schema';
@@ -79,7 +79,8 @@ export function basePlan(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario'
 export function planDiagnosis(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'>, readings: readonly ReadingJson[], base?: DiagnoseResult): DiagnosisPlan {
 	const used = readingsForPlan(readings);
 	const start = base ?? basePlan(doc, d);
-	return { result: Object.keys(used).length ? withReadings(start, used, meterOf(d.meter)) : start, used };
+	const meter = meterOf(d.meter);
+	return { result: Object.keys(used).length ? explainPairs({ doc, scenario: d.scenario, meter }, withReadings(start, used, meter), used) : start, used };
 }
 
 /** Where the hunt stands, in words for the page's heading. */

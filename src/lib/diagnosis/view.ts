@@ -8,6 +8,8 @@ export function planView({ result }: DiagnosisPlan) {
 		probes: result.probes,
 		minimalSet: result.minimalSet,
 		ambiguityGroups: result.ambiguityGroups,
+		groups: result.groups,
+		battery: result.battery,
 		plan: result.plan,
 		...(result.readings ? { readings: result.readings } : {}),
 		notes: result.notes
