@@ -57,7 +57,7 @@ async function seedHunt(user: User, diagram: Diagram, hunt: DemoHunt) {
 	}
 	const done = await diagnosisStore.conclude(await diagnosisStore.load((await db.select().from(diagnoses).where(eq(diagnoses.id, diagnosis.id)))[0]), {
 		version: row.version,
-		foundSuspect: hunt.plantedFault,
+		foundSuspect: hunt.plantedSuspect,
 		conclusion: hunt.concluded.conclusion,
 		partsReplaced: hunt.concluded.partsReplaced
 	});

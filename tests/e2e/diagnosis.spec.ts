@@ -77,7 +77,7 @@ test('the demo fault: shared point, a diagnosis planned and followed to the plan
 		await enter(page, await predicted(page.request, diagramId, probe));
 		probes++;
 	}
-	await expect(page.getByTestId('found')).toHaveAttribute('data-suspect', OPEN_HUNT.plantedFault);
+	await expect(page.getByTestId('found')).toHaveAttribute('data-suspect', OPEN_HUNT.plantedSuspect);
 	await expect(page.getByTestId('found')).toContainText('wire W at 6.in');
 	expect(probes).toBeLessThan(suspectsAtStart);
 	await expect(page.getByTestId('connection')).toHaveAttribute('data-queued', '0');
@@ -85,7 +85,7 @@ test('the demo fault: shared point, a diagnosis planned and followed to the plan
 
 	// Conclude: the found suspect is chosen already.
 	const form = page.getByTestId('conclude-form');
-	await expect(form.getByLabel('What was it?')).toHaveValue(OPEN_HUNT.plantedFault);
+	await expect(form.getByLabel('What was it?')).toHaveValue(OPEN_HUNT.plantedSuspect);
 	await form.getByLabel('What you found and did').fill('Fuse 6 feed clip corroded; cleaned and tensioned. Both gauges read true again.');
 	await form.getByLabel(/Parts replaced/).fill('Fuse 6 holder clip');
 	await form.getByTestId('conclude').click();

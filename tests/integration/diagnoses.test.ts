@@ -96,17 +96,17 @@ describe('diagnoses', () => {
 			state = { ...state, plan: r.body.plan };
 			probes++;
 		}
-		expect(state.plan.readings.remaining.map((x: { suspect: string }) => x.suspect)).toEqual([OPEN_HUNT.plantedFault]);
+		expect(state.plan.readings.remaining.map((x: { suspect: string }) => x.suspect)).toEqual([OPEN_HUNT.plantedSuspect]);
 		// Fewer probes than suspects: the plan splits them, it does not check them one by one.
 		expect(probes).toBeLessThan(state.plan.suspects.length / 2);
 
-		const stale = await api('POST', `/api/diagnoses/${diagnosis.id}/conclude`, owner.cookie, { version: diagnosis.version + 5, foundSuspect: OPEN_HUNT.plantedFault });
+		const stale = await api('POST', `/api/diagnoses/${diagnosis.id}/conclude`, owner.cookie, { version: diagnosis.version + 5, foundSuspect: OPEN_HUNT.plantedSuspect });
 		expect(stale.status).toBe(409);
 		const wrong = await api('POST', `/api/diagnoses/${diagnosis.id}/conclude`, owner.cookie, { version: diagnosis.version, foundSuspect: 'not-a-suspect' });
 		expect(wrong.body.issues[0].path).toBe('foundSuspect');
 		const done = await api('POST', `/api/diagnoses/${diagnosis.id}/conclude`, owner.cookie, {
 			version: diagnosis.version,
-			foundSuspect: OPEN_HUNT.plantedFault,
+			foundSuspect: OPEN_HUNT.plantedSuspect,
 			conclusion: 'Fuse clip cleaned.',
 			partsReplaced: ['Fuse holder']
 		});

@@ -65,6 +65,8 @@ export interface SuspectOut {
 	ohms?: number;
 	/** The fault sizes that explain the marks (Ω, or the stabilizer set-point factor): the suspect stands for all of them. */
 	size?: { low: number; high: number };
+	/** The size that fits the marks best: the suspect's `expected` readings are at it. */
+	typical?: number;
 }
 
 /** A reading no suspect's band holds: kept, with the explanation that fits best. */
@@ -379,7 +381,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		fit: e.fit,
 		place: e.rep.place,
 		...(e.rep.ohms !== undefined ? { ohms: e.rep.ohms } : {}),
-		...(e.size ? { size: e.size } : {})
+		...(e.size ? { size: e.size, typical: e.rep.size } : {})
 	}));
 	const cands = chosen.map((e) => e.rep);
 

@@ -179,19 +179,22 @@ export function subTable(table: PredictionTable, suspects: readonly number[]): P
 }
 
 /**
- * The table as the planner should see it when readings are bands: on each probe, a suspect whose
- * band bridges two groups of narrower bands is taken as unread there (it follows every outcome,
- * as a suspect with no defined reading does), instead of merging the groups into one bin. Without
- * this, one suspect whose reading could be anything (a short of unknown size) would make every
- * probe useless for the rest. Greedy by width: each band, narrowest first, starts a group when it
- * overlaps none, joins the one group it overlaps if that widens the group by half at most, and
- * otherwise follows (it overlaps two groups, or would stretch one over its neighbours).
- * Readings are still weighed against the real bands (plan.ts replan); only the plan's bins change.
+ * The table as the planner should see it when readings are bands. On each probe the bands are
+ * grouped, narrowest first: a band that overlaps no group starts one (its acceptance interval is
+ * the group's hull); a band that overlaps one group joins it, clipped to the hull so that it
+ * cannot stretch the group over its neighbours; a band that overlaps two or more groups is taken
+ * as unread there (it follows every outcome, as a suspect with no defined reading does). Without
+ * this, one suspect whose reading could be almost anything (a short of unknown size) would merge
+ * every bin of every probe. Readings are still weighed against the real bands (plan.ts replan);
+ * only the plan's bins change.
  */
 export function planningView(table: PredictionTable): PredictionTable {
 	if (!table.bands) return table;
 	let changed = false;
-	const readings = table.readings.map((row, p) => {
+	const readings = table.readings.map((row) => [...row]);
+	const bands = table.bands.map((row) => [...row]);
+	table.readings.forEach((row, p) => {
+		const tol = table.probes[p].tolerance;
 		const items = row
 			.map((r, s) => {
 				const a = acceptOf(table, p, s);
@@ -199,22 +202,29 @@ export function planningView(table: PredictionTable): PredictionTable {
 			})
 			.filter((x): x is { s: number; low: number; high: number } => x !== null)
 			.sort((x, y) => x.high - x.low - (y.high - y.low) || x.s - y.s);
-		const groups: { low: number; high: number }[] = [];
-		const follow = new Set<number>();
+		const hulls: ReadingRange[] = [];
 		for (const it of items) {
-			const over = groups.filter((g) => it.low <= g.high && g.low <= it.high);
-			if (over.length === 0) groups.push({ low: it.low, high: it.high });
-			else if (over.length === 1 && Math.max(over[0].high, it.high) - Math.min(over[0].low, it.low) <= 1.5 * (over[0].high - over[0].low)) {
+			const over = hulls.filter((g) => it.low <= g.high && g.low <= it.high);
+			if (over.length === 0) hulls.push({ low: it.low, high: it.high });
+			else if (over.length === 1) {
 				const g = over[0];
-				g.low = Math.min(g.low, it.low);
-				g.high = Math.max(g.high, it.high);
-			} else follow.add(it.s);
+				if (it.low >= g.low && it.high <= g.high) continue;
+				// Clip the band so its acceptance stays inside the hull.
+				const band = bands[p][it.s] ?? { low: row[it.s]!, high: row[it.s]! };
+				const lo = Math.max(band.low, g.low + toleranceAt(tol, g.low));
+				const hi = Math.min(band.high, g.high - toleranceAt(tol, g.high));
+				const clipped = lo <= hi ? { low: lo, high: hi } : { low: (g.low + g.high) / 2, high: (g.low + g.high) / 2 };
+				bands[p][it.s] = clipped;
+				readings[p][it.s] = Math.min(clipped.high, Math.max(clipped.low, row[it.s]!));
+				changed = true;
+			} else {
+				readings[p][it.s] = null;
+				bands[p][it.s] = null;
+				changed = true;
+			}
 		}
-		if (!follow.size) return row;
-		changed = true;
-		return row.map((r, s) => (follow.has(s) ? null : r));
 	});
-	return changed ? { ...table, readings } : table;
+	return changed ? { ...table, readings, bands } : table;
 }
 
 /** True when a measured reading is within tolerance of a predicted one. */

@@ -101,6 +101,8 @@ export function markFits(judged: Judged, ratio: number, mark: Exclude<Mark, 'err
 	return ratio >= t.low / k && ratio <= t.high * k;
 }
 
+const MARK_ORDER: Record<Exclude<Mark, 'erratic'>, number> = { dead: 0, 'reads-low': 1, normal: 2, 'reads-high': 3 };
+
 /** Does a hypothesis, with these ratios per mark, explain every mark (each within `slack`, see markFits)? */
 export function explain(h: Pick<Hypothesis, 'kind'>, marks: readonly PartMark[], judged: readonly Judged[], ratios: readonly number[], slack = 0): Explanation {
 	let fit = 1;
@@ -112,5 +114,19 @@ export function explain(h: Pick<Hypothesis, 'kind'>, marks: readonly PartMark[],
 		fit *= clarity(judged[i], ratios[i]);
 		return p;
 	});
+	// Two parts judged alike and marked differently are seen side by side: the one marked lower
+	// must really read lower, by more than the slack (a stabilizer that moves both gauges alike
+	// cannot make one read low and the other normal — common practice, TRADE.md).
+	if (explains && slack > 0)
+		for (let i = 0; i < marks.length && explains; i++)
+			for (let j = 0; j < marks.length; j++) {
+				const a = marks[i].mark;
+				const b = marks[j].mark;
+				if (judged[i] !== judged[j] || a === 'erratic' || b === 'erratic') continue;
+				if (MARK_ORDER[a] < MARK_ORDER[b] && ratios[i] * (1 + slack) > ratios[j]) {
+					explains = false;
+					break;
+				}
+			}
 	return { explains, fit, predicted };
 }

@@ -18,7 +18,7 @@ describe('readings if a fault were there', () => {
 		// Two paths to one number: diagnose() over the marks' region, readingsIf() over the whole
 		// harness. A disagreement means the region cut off something that carries current.
 		for (const s of plan.suspects.slice(0, 6)) {
-			const got = readingsIf({ doc, scenario, probes: plan.probes.map((p) => p.id), fault: s.id });
+			const got = readingsIf({ doc, scenario, probes: plan.probes.map((p) => p.id), fault: s.id, size: s.typical });
 			got.forEach((r, i) => {
 				const want = plan.probes[i].expected.find((e) => e.suspect === s.id)!.reading;
 				expect(r.reading, `${s.id} at ${r.id}`).toBeCloseTo(want, 4);

@@ -5,7 +5,7 @@
  */
 import { buildCircuit, type Circuit } from './circuit';
 import { DiagnoseError, probeReadings, settleFuses } from './diagnose';
-import { generateHypotheses, type Change, type Region } from './faults';
+import { atSize, generateHypotheses, sizeRange, type Change, type Region } from './faults';
 import { ENTRY_DMM, type MeterProfile } from './meter-profiles';
 import { nodeOfTerminal } from './nets';
 import { Base } from './predict';
@@ -18,8 +18,10 @@ export interface WhatIfInput {
 	scenario: Scenario;
 	/** Probe ids as the plan names them, e.g. `volts:fuse-ign:out`, `joint:w-stab-in:to`. */
 	probes: readonly string[];
-	/** A fault id as the plan's suspects name them, e.g. `joint:w-stab-in:to:20`; none = healthy. */
+	/** A fault id as the plan's suspects name them (`joint:w-stab-in:to`), or with a size (`joint:w-stab-in:to:20`); none = healthy. */
 	fault?: string;
+	/** The fault's size (Ω, or a stabilizer's set-point factor) for a mode that has a range (faults.ts FAULT_SIZE_RANGES). */
+	size?: number;
 	meter?: MeterProfile;
 }
 
@@ -42,9 +44,13 @@ function wholeHarness(doc: HarnessDocument): Region {
  * The circuit changes of a fault named as the plan's suspects name it, with any fuse it overloads
  * blown (as diagnose.ts does); null when the diagram has no such fault.
  */
-export function faultChanges(c: Circuit, base: Base, faultId: string): Change[] | null {
-	const h = generateHypotheses(c).find((x) => x.id === faultId);
-	return h ? settleFuses(base, c, { changes: h.changes, label: h.label }).changes : null;
+export function faultChanges(c: Circuit, base: Base, faultId: string, size?: number): Change[] | null {
+	const all = generateHypotheses(c);
+	// A site id (a suspect stands for every size) takes its middle sweep value unless a size is given.
+	const h = all.find((x) => x.id === faultId) ?? all.filter((x) => x.site === faultId)[1] ?? all.find((x) => x.site === faultId);
+	if (!h) return null;
+	const changes = size !== undefined && sizeRange(h) ? atSize(h, size) : h.changes;
+	return settleFuses(base, c, { changes, label: h.label }).changes;
 }
 
 export function readingsIf(input: WhatIfInput): WhatIfReading[] {
@@ -60,7 +66,7 @@ export function readingsIf(input: WhatIfInput): WhatIfReading[] {
 	input.probes.forEach((id, i) => {
 		if (!byId.has(id)) issues.push({ path: `probes[${i}]`, message: `no probe "${id}" on this diagram (ids as the probe plan names them, e.g. "${all[0]?.id ?? 'volts:<part>:<terminal>'}")` });
 	});
-	const changes = input.fault ? faultChanges(c, base, input.fault) : [];
+	const changes = input.fault ? faultChanges(c, base, input.fault, input.size) : [];
 	if (!changes) issues.push({ path: 'fault', message: noFault(input.fault!) });
 	if (issues.length) throw new DiagnoseError(issues);
 	const specs = input.probes.map((id) => byId.get(id)!);

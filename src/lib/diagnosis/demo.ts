@@ -8,8 +8,10 @@ export interface DemoHunt {
 	marks: PartMark[];
 	/** Switch positions over the document's default (ignition on). */
 	switches?: Record<string, string>;
-	/** The fault that is really there, as the plan's suspects name it. */
+	/** The fault that is really there, with its size (what the meter sees, as what-if.ts names it). */
 	plantedFault: string;
+	/** The same fault as the plan's suspects name it (the site: a suspect stands for every size). */
+	plantedSuspect: string;
 	/** For a concluded hunt: days ago it was started, and what was written at the end. */
 	concluded?: { daysAgo: number; conclusion: string; partsReplaced: string[] };
 }
@@ -21,7 +23,8 @@ export const OPEN_HUNT: DemoHunt = {
 		{ part: 'fuel-gauge', mark: 'reads-low' },
 		{ part: 'temp-gauge', mark: 'reads-low' }
 	],
-	plantedFault: 'joint:w-ign-fuse:to:20'
+	plantedFault: 'joint:w-ign-fuse:to:20',
+	plantedSuspect: 'joint:w-ign-fuse:to'
 };
 
 export const PAST_HUNTS: DemoHunt[] = [
@@ -33,6 +36,7 @@ export const PAST_HUNTS: DemoHunt[] = [
 		],
 		switches: { 'light-switch': 'side' },
 		plantedFault: 'joint:w-e-tail-right:to:100',
+		plantedSuspect: 'joint:w-e-tail-right:to',
 		concluded: {
 			daysAgo: 140,
 			conclusion: 'Earth eyelet of the right tail lamp lead green with corrosion at earth stud 52. Cleaned stud and eyelet, fitted a new star washer, smear of petroleum jelly. Lamp full brightness.',

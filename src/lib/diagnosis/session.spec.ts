@@ -33,15 +33,17 @@ describe('planning again from the kept plan', () => {
 		const doc = demoHarness();
 		const d = { scenario: defaultScenario(doc), marks: OPEN_HUNT.marks, meter: 'entry-dmm' as const };
 		const base = basePlan(doc, d);
+		// The README's first two readings: the battery at its posts, then fuse 6's input.
 		const first = base.plan.steps[0].probe;
-		const readings = [r(first, '2026-01-01T10:00:00.000Z', -6.85)];
+		expect(first).toBe('volts:battery:-');
+		const readings = [r(first, '2026-01-01T10:00:00.000Z', -12.53), r('volts:fuse-ign:in', '2026-01-01T10:01:00.000Z', -6.85)];
 		const kept = planDiagnosis(doc, d, readings, base);
 		const fresh = planDiagnosis(doc, d, readings);
 		expect(kept.result.readings).toEqual(fresh.result.readings);
 		expect(kept.result.plan).toEqual(fresh.result.plan);
 		// The reading narrowed the suspects (the planted fault is among those left).
 		expect(kept.result.readings!.remaining.length).toBeLessThan(base.suspects.length);
-		expect(kept.result.readings!.remaining.map((x) => x.suspect)).toContain(OPEN_HUNT.plantedFault);
+		expect(kept.result.readings!.remaining.map((x) => x.suspect)).toContain(OPEN_HUNT.plantedSuspect);
 		// The kept plan itself is unchanged by planning again from it.
 		expect(base.readings).toBeUndefined();
 	});
