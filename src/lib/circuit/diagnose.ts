@@ -201,6 +201,29 @@ export function probeReadings(
 /** Fault kinds that can raise a current and so blow a fuse; added resistance and opens only lower the battery's load. */
 const RAISES_CURRENT = /short|stuck|stabilizer:high/;
 
+/**
+ * Nodes joined to the battery's live post through wiring, switch and relay contacts and connector
+ * pins only, no fuse: a short there draws what the battery gives and sags every feed. A short
+ * behind another circuit's fuse blows it or draws too little to move parts elsewhere.
+ */
+function unfusedNodes(c: Circuit): Set<number> {
+	const bat = c.doc.parts.find((p) => p.kind === 'battery');
+	if (!bat) return new Set();
+	const live = c.terminalNode({ part: bat.id, terminal: c.doc.vehicle.earth === 'positive' ? '-' : '+' });
+	const next = new Map<number, number[]>();
+	for (const e of c.elements) {
+		if (e.g <= 0 || e.a < 0 || e.b < 0) continue;
+		const passes = e.ref.kind === 'wire' || e.ref.kind === 'joint' || (e.ref.kind === 'part' && (e.ref.role === 'contact' || e.ref.role === 'pin'));
+		if (!passes) continue;
+		(next.get(e.a) ?? next.set(e.a, []).get(e.a)!).push(e.b);
+		(next.get(e.b) ?? next.set(e.b, []).get(e.b)!).push(e.a);
+	}
+	const seen = new Set<number>(live >= 0 ? [live] : []);
+	const stack = [...seen];
+	while (stack.length) for (const m of next.get(stack.pop()!) ?? []) if (!seen.has(m)) (seen.add(m), stack.push(m));
+	return seen;
+}
+
 /** A marks world: the circuit the marks are judged in (nominal, or a sender at one end of its travel). */
 interface MarksWorld {
 	c: Circuit;
@@ -263,7 +286,14 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 
 	// Every size a sized mode can have, sampled on its grid (faults.ts SIZE_GRIDS).
 	const variants: Candidate[] = [];
-	for (const h of generateHypotheses(c, { region, weights: input.weights, sweep: SIZE_GRIDS.resistive })) {
+	// Suspects are chosen by effect, not by adjacency: a chafed short anywhere draws its current
+	// through the battery and the feeds it shares with the marked parts, and can sag them all, so
+	// shorts are tried on every node of the harness; the marks keep only those that explain them.
+	const inRegion = generateHypotheses(c, { region, weights: input.weights, sweep: SIZE_GRIDS.resistive });
+	const seen = new Set(inRegion.map((h) => h.site));
+	const unfused = unfusedNodes(c);
+	const elsewhere = generateHypotheses(c, { weights: input.weights, sweep: [] }).filter((h) => h.kind === 'node:short' && !seen.has(h.site) && h.changes.some((ch) => ch.type === 'to-chassis' && unfused.has(ch.node)));
+	for (const h of [...inRegion, ...elsewhere]) {
 		const grid = h.kind === 'node:short' || h.kind === 'stabilizer:low' || h.kind === 'stabilizer:high' ? gridOf(h) : null;
 		const sized = grid ? grid.map((size) => ({ ...h, id: `${h.site}:${size}`, changes: atSize(h, size), size })) : [{ ...h, ...(h.ohms !== undefined ? { size: h.ohms } : {}) }];
 		for (const v of sized) {
@@ -387,7 +417,15 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 
 	// Probes and their readings under every suspect, one base per setup.
 	const partOut = marks.filter((m) => m.mark !== 'normal').map((m) => m.part);
-	let specs = candidateProbes(doc, scenario, c, base.solution, region, { profile, reach: input.reach, tools: input.tools, partOut });
+	// The probes reach every suspect's place, wherever the marks found it.
+	const probeRegion: Region = { parts: new Set(region.parts), wires: new Set(region.wires), nodes: new Set(region.nodes) };
+	for (const e of chosen)
+		for (const place of e.rep.place) {
+			if (place.part) probeRegion.parts.add(place.part);
+			if (place.node) probeRegion.nodes.add(place.node);
+			if (place.wire) probeRegion.wires.add(place.wire);
+		}
+	let specs = candidateProbes(doc, scenario, c, base.solution, probeRegion, { profile, reach: input.reach, tools: input.tools, partOut });
 	if (input.onlyProbes) {
 		const only = new Set(input.onlyProbes);
 		specs = specs.filter((s) => only.has(s.id));
