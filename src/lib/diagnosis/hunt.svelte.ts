@@ -1,6 +1,6 @@
 // The diagnosis page's state: the stored diagnosis and its readings, the readings queued while
 // offline, and the plan made from all of them in the browser (so the suspects narrow and the
-// plan re-plans without a network). Readings go to the server through the API; a queued one is
+// plan re-plans without a network, and every probe's full entry is at hand). Readings go to the server through the API; a queued one is
 // sent again until the server has it, and the server stores each clientId once.
 import { api } from '$lib/api';
 import type { HarnessDocument } from '$lib/circuit/schema';
@@ -10,6 +10,9 @@ import type { DiagnosisJson, ReadingJson, ReadingOutcome } from './session';
 import type { PlanView } from './view';
 
 type ReadingsReply = { stored: number; already: number; readings: ReadingJson[]; plan: PlanView };
+
+/** Which readings a plan was made from: the same clientIds, struck or not, give the same plan. */
+const readingsKey = (list: readonly ReadingJson[]) => list.map((x) => `${x.clientId}:${x.struck ? 1 : 0}`).sort().join(',');
 
 export interface HuntInit {
 	diagnosis: DiagnosisJson;
@@ -42,6 +45,8 @@ export class Hunt {
 	private readonly queue: ReadingQueue | null;
 	private readonly planner = new Planner();
 	private planAsked = 0;
+	/** The readings the shown plan was made here from (null: it came from the server). */
+	private plannedFor: string | null = null;
 
 	constructor(init: HuntInit) {
 		this.diagnosis = init.diagnosis;
@@ -71,11 +76,11 @@ export class Hunt {
 			void this.sync();
 			if (document.visibilityState === 'visible') void this.refresh();
 		}, 15_000);
+		// The page came with the plan as the server made it (every probe by name, the next one in
+		// full); plan here too, quietly, which gives every probe's full entry for a probe chosen out of the plan.
+		void this.replan(!this.queued.length);
 		void this.refresh();
-		if (this.queued.length) {
-			void this.replan();
-			void this.sync();
-		}
+		if (this.queued.length) void this.sync();
 		this.keepForOffline();
 		return () => {
 			window.removeEventListener('online', on);
@@ -102,12 +107,17 @@ export class Hunt {
 		await this.sync();
 	}
 
-	private async replan(): Promise<void> {
+	/** Plans from the readings here; `quiet`: the same readings as the plan shown, so nothing to say "planning again" about. */
+	private async replan(quiet = false): Promise<void> {
 		const asked = ++this.planAsked;
-		this.planning = true;
+		const key = readingsKey(this.all);
+		this.planning = !quiet;
 		try {
 			const plan = await this.planner.plan(this.document, this.diagnosis, this.all);
-			if (asked === this.planAsked) this.plan = plan;
+			if (asked === this.planAsked) {
+				this.plan = plan;
+				this.plannedFor = key;
+			}
 		} catch (e) {
 			if (asked === this.planAsked) this.problem = `Could not plan again: ${e instanceof Error ? e.message : String(e)}`;
 		} finally {
@@ -124,8 +134,7 @@ export class Hunt {
 			return;
 		}
 		this.online = true;
-		const key = (list: ReadingJson[]) => list.map((x) => `${x.clientId}:${x.struck ? 1 : 0}`).join(',');
-		if (key(r.data.readings) === key(this.stored)) return;
+		if (readingsKey(r.data.readings) === readingsKey(this.stored)) return;
 		this.stored = r.data.readings;
 		await this.replan();
 	}
@@ -144,7 +153,9 @@ export class Hunt {
 					this.online = true;
 					this.stored = r.data.readings;
 					this.queued = this.queue ? this.queue.remove(batch.map((x) => x.clientId)) : this.queued.filter((x) => !batch.includes(x));
-					if (!this.queued.length) this.plan = r.data.plan;
+					// The server's plan names the probes only: plan here (unless already planned from these
+					// very readings), which keeps every probe's full entry.
+					if (!this.queued.length && readingsKey(this.all) !== this.plannedFor) await this.replan();
 					continue;
 				}
 				if (r.status === 0 || r.status >= 500) {

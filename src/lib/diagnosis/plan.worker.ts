@@ -19,7 +19,7 @@ scope.onmessage = (event) => {
 	try {
 		const key = JSON.stringify([document.parts.length, document.wires.length, diagnosis]);
 		if (kept?.key !== key) kept = { key, base: basePlan(document, diagnosis) };
-		scope.postMessage({ id, plan: planView(planDiagnosis(document, diagnosis, readings, kept.base)) });
+		scope.postMessage({ id, plan: planView(planDiagnosis(document, diagnosis, readings, kept.base), 'all') });
 	} catch (e) {
 		scope.postMessage({ id, error: e instanceof Error ? e.message : String(e) });
 	}

@@ -1,12 +1,12 @@
 // The page's side of the plan worker: the latest request wins (a reading typed while the last
-// plan is still being made supersedes it). Falls back to planning on the page's thread where
+// plan is still being made supersedes it). Its plans carry every probe's full entry (view.ts). Falls back to planning on the page's thread where
 // workers are not available.
 import type { HarnessDocument } from '../circuit/schema';
 import type { PlanReply, PlanRequest } from './plan.worker';
 import { planDiagnosis, type DiagnosisJson, type ReadingJson } from './session';
 import { planView, type PlanView } from './view';
 
-const here = (m: Omit<PlanRequest, 'id'>): PlanView => planView(planDiagnosis(m.document, m.diagnosis, m.readings));
+const here = (m: Omit<PlanRequest, 'id'>): PlanView => planView(planDiagnosis(m.document, m.diagnosis, m.readings), 'all');
 
 export class Planner {
 	private worker: Worker | null = null;
