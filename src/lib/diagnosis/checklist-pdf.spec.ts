@@ -75,6 +75,20 @@ describe('checklistPdf', () => {
 		}
 	});
 
+	it('prints the battery step first, with when to charge it, and every group\u2019s one job', () => {
+		const words = gaugesText.runs.flat().join(' ').replace(/\s+/g, ' ');
+		const first = gauges.steps[0];
+		expect(first.advice).toMatch(/^Read the battery first/);
+		expect(words).toContain(`Battery first ${winAnsi(first.advice!)}`);
+		// Wrapped over lines, a group's job is there whole, after the heading of the groups.
+		expect(gauges.groups.length).toBeGreaterThan(0);
+		expect(words).toContain('Cannot be told apart with a meter: one job for each group');
+		for (const g of gauges.groups) expect(words).toContain(winAnsi(g.action));
+		// A range that ends on a group prints its job in "Where next".
+		const ending = gauges.steps.flatMap((s) => s.outcomes).find((o) => o.action)!;
+		expect(words).toContain(winAnsi(ending.text));
+	});
+
 	it('numbers every page "Page i of n"', () => {
 		for (const [i, runs] of [...gaugesText.runs.entries()]) expect(runs).toContain(`Page ${i + 1} of ${gaugesText.pages}`);
 		expect(gaugesText.pages).toBeGreaterThan(1);

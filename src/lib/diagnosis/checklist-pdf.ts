@@ -220,6 +220,7 @@ function step(sheet: Sheet, s: PrintStep, cautionTitles: Map<number, string>, dr
 	col('Setting', s.setting);
 	if (s.conditions.length) col('Conditions', s.conditions.join('; '));
 	if (s.cautions.length) col('Cautions', s.cautions.map((n) => `${n} (${cautionTitles.get(n) ?? ''})`).join(', '));
+	if (s.advice) col('Battery first', s.advice);
 	const leftEnd = sheet.y;
 
 	// Right column: the reading box.
@@ -246,12 +247,13 @@ function step(sheet: Sheet, s: PrintStep, cautionTitles: Map<number, string>, dr
 		}
 		down(draw(dry));
 	};
-	flow((d) => sheet.text('Expected reading for each remaining suspect (likeliest first)', { bold: true, size: SMALL + 0.5, colour: SOFT, dry: d }) + 1);
+	flow((d) => sheet.text('Expected range for each remaining suspect (likeliest first)', { bold: true, size: SMALL + 0.5, colour: SOFT, dry: d }) + 1);
+	// A band ("-12.74 to -11.82 V") takes about 100 pt in bold at the body size.
 	for (const e of s.expected) {
 		flow((d) => {
-			const h1 = sheet.text(e.reading, { x: 6, width: 74, bold: true, dry: d });
-			const h2 = sheet.text(e.chance, { x: 82, width: 34, size: SMALL, dry: d, colour: SOFT });
-			const h3 = sheet.text(e.label, { x: 118, width: sheet.width - 118, dry: d });
+			const h1 = sheet.text(e.reading, { x: 6, width: 112, bold: true, dry: d });
+			const h2 = sheet.text(e.chance, { x: 122, width: 34, size: SMALL, dry: d, colour: SOFT });
+			const h3 = sheet.text(e.label, { x: 158, width: sheet.width - 158, dry: d });
 			return Math.max(h1, h2, h3) + 1;
 		});
 	}
@@ -300,6 +302,8 @@ export async function checklistPdf(model: ChecklistModel, options: PdfOptions = 
 	down(row(sheet, 'Dates', `started ${h.started}; printed ${h.printed}`, false));
 	down(row(sheet, 'Marked', h.marks.map((m) => `${m.key}${m.label ? ` ${m.label}` : ''}: ${m.words}`).join('; '), false));
 	down(row(sheet, 'Where it stands', h.standing + (h.conclusion ? ` Concluded: ${h.conclusion}` : ''), false));
+	// Once read, the battery's state heads the page: a low one is charged before anything else.
+	if (model.battery?.reading) down(row(sheet, model.battery.charge ? 'CHARGE FIRST' : 'Battery', model.battery.advice, false));
 	down(8);
 
 	// Cautions, boxed with a heavy rule so the block reads as a warning without colour.
@@ -347,8 +351,8 @@ export async function checklistPdf(model: ChecklistModel, options: PdfOptions = 
 	if (model.groups.length) {
 		keepTogether(sheet, (dry) => {
 			const top = sheet.y;
-			down(sheet.text('Cannot be told apart with a meter (replace or inspect)', { size: 11.5, bold: true, dry }) + 3);
-			for (const g of model.groups) down(sheet.text(`\u2022 ${g.join('; ')}`, { x: 6, dry }) + 1);
+			down(sheet.text('Cannot be told apart with a meter: one job for each group', { size: 11.5, bold: true, dry }) + 3);
+			for (const g of model.groups) down(sheet.text(`\u2022 ${g.final ? 'Left at the end: ' : ''}${g.action}`, { x: 6, dry }) + 2);
 			down(8);
 			return top - sheet.y;
 		});

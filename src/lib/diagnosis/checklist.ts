@@ -2,7 +2,10 @@
  * The printable probe checklist of a diagnosis: the planner's numbered steps (plan.ts
  * `checklist()`) joined with each probe's place, setting and conditions (probes.ts), the wire
  * colours in words and as a stripe, the cautions that apply (cautions.ts) and the readings
- * already taken. One model feeds both the print page and the PDF, so they show the same steps.
+ * already taken. Every expected reading is a band (the battery, part tolerances, wire lengths and
+ * the fault's size move it); the battery's own probe comes first with its caution and when to
+ * charge it; a range that ends on suspects no probe tells apart gives their one job (groups.ts).
+ * One model feeds both the print page and the PDF, so they show the same steps.
  *
  * Pure: no database, no Svelte, no network.
  */
@@ -16,6 +19,7 @@ import type { Mark } from '$lib/circuit/symptoms';
 import { wireNames, type WireNames } from '$lib/circuit/wire-names';
 import { CAUTION_TEXTS, cautionOf, mayHaveAirbags, requiredCautions, type CautionId } from './cautions';
 import { readingsForPlan, type DiagnosisJson, type ReadingJson } from './session';
+import { endingText, formatBand, jobFor } from './view';
 
 type Probe = DiagnoseResult['probes'][number];
 
@@ -24,7 +28,7 @@ export interface ChecklistInput {
 	diagram: { title: string };
 	diagnosis: Pick<DiagnosisJson, 'id' | 'title' | 'diagramRevision' | 'marks' | 'status' | 'createdAt' | 'foundLabel' | 'conclusion'>;
 	document: HarnessDocument;
-	result: Pick<DiagnoseResult, 'plan' | 'probes' | 'suspects' | 'ambiguityGroups' | 'readings' | 'explainedBy'>;
+	result: Pick<DiagnoseResult, 'plan' | 'probes' | 'suspects' | 'readings' | 'explainedBy' | 'table' | 'groups' | 'battery'>;
 	meter: MeterProfile;
 	readings: readonly ReadingJson[];
 	/** When the checklist is printed (the header's date). */
@@ -60,7 +64,7 @@ export interface CautionBlockEntry {
 export interface ExpectedLine {
 	suspect: string;
 	label: string;
-	/** "-12.50 V", "100 %", "OL (over range)", "no reading". */
+	/** The band the suspect predicts: "−12.74 to −11.82 V", "75–111 %", "2.10 Ω to OL", "no reading". */
 	reading: string;
 	/** "34 %": the suspect's chance at this step. */
 	chance: string;
@@ -69,10 +73,27 @@ export interface ExpectedLine {
 export interface OutcomeLine {
 	/** The range as the plan prints it, with its unit. */
 	reading: string;
-	/** The plan's line: "9.00–11.00 V: go to step 4". */
+	/** The plan's line: "9.00–11.00 V: go to step 4"; a range that ends on a group gives the group's job. */
 	text: string;
 	/** The step it sends you to, or null when it ends (found, cannot be told apart, plan again). */
 	next: number | null;
+	/** For a range that ends on suspects no probe tells apart: their one job ("…: clean and re-make both."). */
+	action: string | null;
+}
+
+/** The battery as the checklist prints it: read first, and charged before going on when low. */
+export interface BatteryLine {
+	probe: string;
+	/** The step that reads it, when it is still to be read. */
+	step: number | null;
+	/** "11.9–12.8 V at rest". */
+	assumed: string;
+	/** The reading taken at its posts, or null. */
+	reading: string | null;
+	/** Read below the charge threshold: charge it (and rest it) before going on. */
+	charge: boolean;
+	/** What to do, in a sentence or two. */
+	advice: string;
 }
 
 export interface TakenReading {
@@ -106,6 +127,8 @@ export interface PrintStep {
 	conditions: string[];
 	/** Numbers in the cautions block. */
 	cautions: number[];
+	/** At the battery's own probe: why it comes first and when to charge it. */
+	advice: string | null;
 	unit: string;
 	expected: ExpectedLine[];
 	/** The reading already taken at this probe (latest, not struck), filled into the box. */
@@ -143,8 +166,10 @@ export interface ChecklistModel {
 	};
 	steps: PrintStep[];
 	readings: TakenReading[];
-	/** Suspects no probe of the plan can tell apart (replace or inspect instead). */
-	groups: string[][];
+	/** The main battery: read first, with when to charge it; null when the plan has none (nothing powered). */
+	battery: BatteryLine | null;
+	/** Suspects no probe of the plan can tell apart, by label, with the one job for them; `final` is the group the plan ended on. */
+	groups: { suspects: string[]; action: string; final: boolean }[];
 	notes: string[];
 	/** Parts and wires the steps touch, and the marked parts: the region drawn beside the steps. */
 	region: { parts: string[]; wires: string[] };
@@ -274,8 +299,10 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 			if (!own.includes(id)) own.push(id);
 			if (!ids.includes(id)) ids.push(id);
 		}
-		// A step taken at the tank or with ohms refers to those cautions even when the planner did not say so.
+		// A step taken at the tank or with ohms refers to those cautions even when the planner did not say so;
+		// the battery's own probe to the battery's.
 		if (p.kind === 'ohms' && !own.includes('ohms')) own.push('ohms');
+		if (p.id === result.battery?.probe && !own.includes('battery')) own.push('battery');
 		if (p.setup !== 'power-off' && needs.coil && !own.includes('coil')) own.push('coil');
 		return own;
 	});
@@ -286,6 +313,45 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 	const cautionNumber = new Map(ids.map((id, i) => [id, i + 1]));
 
 	const used = readingsForPlan(input.readings);
+
+	// Each suspect's band at each probe (the table's probes and suspects are the result's, in order).
+	const probeAt = new Map(result.probes.map((p, i) => [p.id, i]));
+	const suspectAt = new Map(result.suspects.map((x, i) => [x.id, i]));
+	const expectedText = (probe: string, suspect: string, unit: string, nominal: number | null) => {
+		const b = result.table.bands?.[probeAt.get(probe) ?? -1]?.[suspectAt.get(suspect) ?? -1];
+		return b ? formatBand(b, unit, overLimit) : formatReading(nominal, unit, overLimit);
+	};
+
+	// The battery: read first (its probe leads a powered plan), charged before going on when low.
+	const bat = result.battery;
+	const v1 = (x: number) => `${x.toFixed(1)} V`;
+	const minus = doc.vehicle.earth === 'positive' ? ' (the meter shows a minus sign: positive earth)' : '';
+	const batteryStep = bat ? (planSteps.find((s) => s.probe === bat.probe)?.step ?? null) : null;
+	const batteryRead = bat ? used[bat.probe] : undefined;
+	const batteryAdvice = (): string => {
+		if (!bat) return '';
+		const range = `${v1(bat.assumed.low)}\u2013${v1(bat.assumed.high)}`;
+		if (bat.measured === undefined) {
+			return bat.chargeBelow !== null
+				? `Read the battery first, on its posts (not the clamps): every expected reading depends on it. At rest it should read ${range}${minus}. Below ${v1(bat.chargeBelow)}, charge it and let it rest some hours before going on. Enter the reading in the diagnosis and print again for ranges worked out from it.`
+				: `Read the battery first, on its posts (not the clamps), with the engine running: about ${range}${minus}. Enter the reading in the diagnosis and print again for ranges worked out from it.`;
+		}
+		const read = formatReading(bat.measured, 'V', overLimit);
+		const emf = bat.emf !== undefined ? `, about ${bat.emf.toFixed(2)} V with nothing drawing current` : '';
+		if (bat.charge)
+			return `Charge the battery first: it read ${read} at its posts${emf}, below ${v1(bat.chargeBelow ?? 0)}. A flat battery pulls every reading down. Charge it, let it rest some hours, then read it again before going on.`;
+		return bat.chargeBelow !== null ? `The battery read ${read} at its posts${emf}: charged enough to go on.` : `The battery read ${read} at its posts with the engine running.`;
+	};
+	const battery: BatteryLine | null = bat
+		? {
+				probe: bat.probe,
+				step: batteryStep,
+				assumed: `${v1(bat.assumed.low)}\u2013${v1(bat.assumed.high)}${bat.chargeBelow !== null ? ' at rest' : ' running'}`,
+				reading: typeof batteryRead === 'number' ? formatReading(batteryRead, 'V', overLimit) : null,
+				charge: bat.charge,
+				advice: batteryAdvice()
+			}
+		: null;
 
 	const steps: PrintStep[] = planSteps.map((s, i) => {
 		const p = stepProbes[i];
@@ -310,10 +376,14 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 			setting: p.setting,
 			conditions: p.conditions.filter((c) => c !== lead.fromConditions),
 			cautions: stepCautionIds[i].map((id) => cautionNumber.get(id)!).sort((a, b) => a - b),
+			advice: battery && p.id === battery.probe ? battery.advice : null,
 			unit: p.unit,
-			expected: s.expected.map((e) => ({ suspect: e.suspect, label: e.label, reading: formatReading(e.reading, p.unit, overLimit), chance: `${Math.round(e.chance * 100)} %` })),
+			expected: s.expected.map((e) => ({ suspect: e.suspect, label: e.label, reading: expectedText(p.id, e.suspect, p.unit, e.reading), chance: `${Math.round(e.chance * 100)} %` })),
 			taken,
-			outcomes: s.outcomes.map((o) => ({ reading: o.reading, text: o.text, next: o.then.kind === 'step' ? o.then.step : null })),
+			outcomes: s.outcomes.map((o) => {
+				const action = o.then.kind === 'ambiguous' ? jobFor(result, o.then.suspects) : null;
+				return { reading: o.reading, text: action ? `${o.reading}: ${endingText(result, o.then)}` : o.text, next: o.then.kind === 'step' ? o.then.step : null, action };
+			}),
 			otherwise: s.otherwise
 		};
 	});
@@ -352,6 +422,7 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 	const makeModel = [v.make, v.model].filter(Boolean).join(' ');
 	const vehicleLine = [v.name, makeModel && makeModel !== v.name ? makeModel : '', v.year].filter(Boolean).join(', ');
 	const remaining = result.readings ? result.readings.remaining.length : result.suspects.length;
+	const finalGroup = result.groups.find((g) => g.final);
 	const standing =
 		remaining === 0
 			? 'No suspect explains the marks and readings: check the marks, the scenario and the diagram.'
@@ -359,7 +430,7 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 				? 'One suspect left.'
 				: planSteps.length
 					? `${remaining} suspects left; the plan takes about ${result.plan.expectedProbes.toFixed(1)} readings to tell them apart.`
-					: `${remaining} suspects left that no meter reading here can tell apart.`;
+					: `${remaining} suspects left that no meter reading here can tell apart. ${finalGroup?.action ?? jobFor(result, result.readings?.remaining.map((r) => r.suspect) ?? result.suspects.map((x) => x.id))}`;
 	const labelOf = new Map(result.suspects.map((s) => [s.id, s.label]));
 
 	return {
@@ -391,7 +462,8 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 		},
 		steps,
 		readings,
-		groups: result.ambiguityGroups.map((g) => g.map((id) => labelOf.get(id) ?? id)),
+		battery,
+		groups: result.groups.map((g) => ({ suspects: g.suspects.map((id) => labelOf.get(id) ?? id), action: g.action, final: !!g.final })),
 		notes: result.explainedBy === 'none' ? ['No single or double fault of the region explains the marks.'] : [],
 		region: { parts: [...regionParts], wires: [...regionWires] },
 		fileName: `checklist-${slug(v.name)}-${isoDate(diagnosis.createdAt)}-${diagnosis.id.slice(0, 8)}.pdf`
