@@ -438,14 +438,24 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	// Bands (bands.ts): every other group of uncertain values at each end, the battery at three EMFs.
 	const bat = batteryRange(doc, scenario, u);
 	const emf: EmfRange | null = bat ? { low: bat.low, nominal: bat.nominal, high: bat.high } : null;
-	const solveWorld = (wdoc: HarnessDocument, wsc: Scenario) => {
+	// With the battery disconnected its EMF and the stabilizer's setting change nothing: those
+	// worlds solve the powered probes only and take the ohms readings as they are.
+	const powered = specs.map((sp, i) => (sp.setup === 'power-off' ? -1 : i)).filter((i) => i >= 0);
+	const solveWorld = (wdoc: HarnessDocument, wsc: Scenario, poweredOnly = false) => {
 		const cw = buildCircuit(wdoc, wsc);
-		return probeReadings(wdoc, wsc, cw, new Base(cw), cands, specs, profile, fallbacks);
+		if (!poweredOnly || powered.length === specs.length) return probeReadings(wdoc, wsc, cw, new Base(cw), cands, specs, profile, fallbacks);
+		const got = probeReadings(wdoc, wsc, cw, new Base(cw), cands, powered.map((i) => specs[i]), profile, fallbacks);
+		const out = { readings: readings.map((row) => [...row]), healthy: [...healthyReading] };
+		powered.forEach((i, k) => {
+			out.readings[i] = got.readings[k];
+			out.healthy[i] = got.healthy[k];
+		});
+		return out;
 	};
 	const groups = new Map<string, { readings: number[][]; healthy: number[] }[]>();
 	for (const w of factorWorlds(doc, scenario, u, region)) {
 		const g = w.id.slice(0, w.id.lastIndexOf(':'));
-		(groups.get(g) ?? groups.set(g, []).get(g)!).push(solveWorld(w.doc, w.scenario));
+		(groups.get(g) ?? groups.set(g, []).get(g)!).push(solveWorld(w.doc, w.scenario, g === 'stabilizer'));
 	}
 	const ends = [...groups.values()];
 	// The band at the nominal EMF: over the suspect's representative and the sizes of its span that
@@ -493,8 +503,8 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		}
 		return { low, high };
 	};
-	const lowRun = emf ? solveWorld(withBattery(doc, scenario, emf.low), scenario) : null;
-	const highRun = emf ? solveWorld(withBattery(doc, scenario, emf.high), scenario) : null;
+	const lowRun = emf ? solveWorld(withBattery(doc, scenario, emf.low), scenario, true) : null;
+	const highRun = emf ? solveWorld(withBattery(doc, scenario, emf.high), scenario, true) : null;
 	const spreadOf = (p: number, h: number): Spread => {
 		const nominal = h < cands.length ? readings[p][h] : healthyReading[p];
 		const pick = (run: typeof lowRun) => (run ? (h < cands.length ? run.readings[p][h] : run.healthy[p]) : nominal);
