@@ -40,9 +40,13 @@ beforeAll(async () => {
 	const started = await api('POST', `/api/diagrams/${d.body.diagram.id}/diagnoses`, owner.cookie, { revision: 1, marks: gaugesLow });
 	expect(started.status, JSON.stringify(started.body)).toBe(201);
 	diagnosisId = started.body.diagnosis.id;
-	const step = started.body.plan.plan.steps[0];
-	firstProbe = step.probe;
-	// The reading the instrument stabilizer's low output predicts at the first step.
+	firstProbe = started.body.plan.plan.steps[0].probe;
+	// The reading the instrument stabilizer's low output predicts at the first step, from the
+	// stateless plan of the same marks (the diagnosis's page data names the probes only).
+	const stateless = await api('POST', `/api/diagrams/${d.body.diagram.id}/probe-plan`, owner.cookie, { marks: gaugesLow });
+	expect(stateless.status).toBe(200);
+	const step = stateless.body.plan.steps[0];
+	expect(step.probe).toBe(firstProbe);
 	predicted = step.expected.find((e: { suspect: string }) => e.suspect === 'stabilizer:low:stabilizer').reading;
 }, 60_000);
 
