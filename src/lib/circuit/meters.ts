@@ -10,6 +10,7 @@
  * - Test lamp: a bulb of a few watts, hot resistance V²/P, from the point to earth; brightness
  *   is the power it gets over its rated power. It loads the circuit and shows a drop.
  */
+import { CHASSIS } from './nets';
 import { addCurrentSource, addElement, buildCircuit, type Circuit } from './circuit';
 import { lampResistance } from './parts';
 import type { Scenario } from './scenario';
@@ -35,32 +36,48 @@ export function probeNode(c: Circuit, p: ProbePoint): number {
 const volt = (s: Solution, node: number) => s.at(node);
 
 /**
- * Nodes that a regulating stabilizer's output reaches through wires, joints, pins, fuses and
- * closed contacts: a DMM there shows the pulsing of the contacts.
+ * Nodes a regulating stabilizer's output feeds, each with how much of the output's swing it
+ * shows: V(node)/V(output) against the battery's earthed post. The contacts open and close
+ * several times a second (TRADE.md), so a DMM fluctuates there — on the output itself, along its
+ * wires and contacts, and in proportion beyond a load (a gauge's sender terminal is a divider of
+ * the output). The walk goes downhill only (toward earth, as the output's current does), stops at
+ * the chassis and the stabilizer's own earth, which every circuit shares, and never crosses the
+ * stabilizer's own contacts or heater back to its input.
  */
-export function pulsingNodes(s: Solution): Set<number> {
+export function pulsingNodes(s: Solution): Map<number, number> {
 	const c = s.circuit;
-	const out = new Set<number>();
-	const conductors = new Set(['contact', 'pin', 'fuse']);
+	const out = new Map<number, number>();
+	const chassis = c.nodeIndex.get(CHASSIS) ?? -1;
+	const own = new Set(c.stabilizers.map((st) => st.part));
 	const adj = new Map<number, number[]>();
 	c.elements.forEach((e, k) => {
-		if (s.g[k] === 0) return;
-		const passes = e.ref.kind === 'wire' || e.ref.kind === 'joint' || (e.ref.kind === 'part' && conductors.has(e.ref.role));
-		if (!passes) return;
+		if (s.g[k] === 0 || e.a < 0 || e.b < 0) return;
+		if (e.ref.kind === 'part' && own.has(e.ref.part)) return;
 		(adj.get(e.a) ?? adj.set(e.a, []).get(e.a)!).push(e.b);
 		(adj.get(e.b) ?? adj.set(e.b, []).get(e.b)!).push(e.a);
 	});
+	const earthSide = new Set<number>([chassis]);
+	for (const st of c.stabilizers) earthSide.add(st.earth);
 	for (const st of c.stabilizers) {
-		if (!s.regulating.get(st.part)) continue;
+		const vOut = s.at(st.output);
+		if (!s.regulating.get(st.part) || Math.abs(vOut) < 1e-9) continue;
 		const stack = [st.output];
-		out.add(st.output);
+		out.set(st.output, 1);
 		while (stack.length) {
 			const v = stack.pop()!;
-			for (const w of adj.get(v) ?? []) if (!out.has(w) && w >= 0) (out.add(w), stack.push(w));
+			for (const w of adj.get(v) ?? [])
+				// Downhill only: the output's current flows toward earth, never up through another load.
+				if (!out.has(w) && !earthSide.has(w) && Math.abs(s.at(w)) <= Math.abs(s.at(v)) + 1e-9) {
+					out.set(w, Math.max(0, Math.min(1, s.at(w) / vOut)));
+					stack.push(w);
+				}
 		}
 	}
 	return out;
 }
+
+/** Below this share of the output's swing a DMM holds steady enough to read (invented). */
+export const PULSING_SHOWN = 0.05;
 
 export interface VoltsReading {
 	volts: number;
@@ -81,7 +98,7 @@ export function measureVolts(
 	const b = probeNode(c, black);
 	addElement(c, a, b, inputOhms, 'voltmeter');
 	const s = solveCircuit(c);
-	return { volts: volt(s, a) - volt(s, b), pulsing: pulsingNodes(s).has(a), converged: s.converged };
+	return { volts: volt(s, a) - volt(s, b), pulsing: (pulsingNodes(s).get(a) ?? 0) > PULSING_SHOWN, converged: s.converged };
 }
 
 /** Volt drop from a to b with the circuit working (the meter across the two points). */

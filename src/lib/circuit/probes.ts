@@ -11,7 +11,7 @@
  */
 import type { Circuit } from './circuit';
 import type { Region } from './faults';
-import { probeNode, pulsingNodes, type ProbePoint } from './meters';
+import { probeNode, PULSING_SHOWN, pulsingNodes, type ProbePoint } from './meters';
 import type { MeterProfile } from './meter-profiles';
 import { nodeOfTerminal } from './nets';
 import { lampResistance, type Location } from './parts';
@@ -151,7 +151,13 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 		to,
 		...extra
 	});
-	const voltsTol = (nodes: number[]): Tolerance => ({ ...profile.volts, ...(nodes.some((n) => pulsing.has(n)) ? { band: profile.pulsingBand } : {}) });
+	// A reading fed from a pulsing stabilizer swings with it, in proportion to its share of the
+	// output (meters.ts pulsingNodes): volts to earth by that share, a drop by the difference.
+	const voltsTol = (nodes: number[]): Tolerance => {
+		const [a, b] = nodes.map((n) => pulsing.get(n) ?? 0);
+		const share = Math.abs(a - (b ?? 0));
+		return { ...profile.volts, ...(share > PULSING_SHOWN ? { band: Math.round(profile.pulsingBand * share * 1000) / 1000 } : {}) };
+	};
 	const lampOhms = lampResistance(doc.vehicle.systemVoltage, profile.lamp.watts);
 	const lampTol: Tolerance = { abs: profile.lamp.abs, rel: profile.lamp.rel };
 	const name = (p: Part) => (p.label ? `${p.key} (${p.label})` : p.key);
