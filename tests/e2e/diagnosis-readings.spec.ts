@@ -164,3 +164,46 @@ test('the battery first, a reading no suspect explains kept and taken again, the
 	await expect(page.getByTestId('conclusion')).toContainText('both gauges read true again');
 	await shots(page, testInfo, '4-concluded');
 });
+
+test('a battery read low: charge it first, with the caution; read again once charged', async ({ page }, testInfo) => {
+	test.setTimeout(180_000);
+	await page.setViewportSize(DESKTOP);
+	await signIn(page);
+	const diagrams = (await (await page.request.get('/api/diagrams')).json()).diagrams as { id: string; title: string; revision: number }[];
+	const diagram = diagrams.find((d) => d.title === 'Complete harness')!;
+	const started = await page.request.post(`/api/diagrams/${diagram.id}/diagnoses`, { data: { revision: diagram.revision, marks: OPEN_HUNT.marks, title: 'Gauges low, battery not charged' } });
+	expect(started.status(), await started.text()).toBe(201);
+	const path = `/diagnoses/${(await started.json()).diagnosis.id}`;
+	await page.goto(path);
+	const card = page.getByTestId('probe-card');
+	await expect(card).toHaveAttribute('data-probe', BATTERY);
+
+	// 11.50 V at rest is below 12.0 V per 12 V: charge first (TRADE.md, BCI rest table; common practice).
+	await enter(page, '-11.50');
+	const notice = page.getByTestId('charge-battery');
+	await expect(notice).toHaveAttribute('role', 'alert');
+	await expect(notice).toContainText('Charge the battery first');
+	await expect(notice).toContainText('It read \u221211.50 V at its posts');
+	await expect(notice).toContainText('below 12.0 V');
+	await expect(notice).toContainText('let it rest some hours, then read it again before going on');
+	await expect(notice.getByTestId('battery-caution')).toContainText('eye protection');
+	await expect(notice.getByTestId('battery-caution')).toContainText('well-ventilated place');
+	await expect(page.getByTestId('battery-read')).toHaveCount(0);
+	await shots(page, testInfo, '5-charge');
+
+	// The printable checklist says so first.
+	await page.goto(`${path}/checklist`);
+	await expect(page.locator('[data-charge]')).toContainText('Charge the battery first');
+	await page.goto(path);
+
+	// Charged and rested: read it again.
+	await notice.getByTestId('battery-again').click();
+	await expect(card).toHaveAttribute('data-probe', BATTERY);
+	await expect(page.getByRole('heading', { name: 'Take it again' })).toBeVisible();
+	await expect(card.getByTestId('reading-input')).toBeVisible({ timeout: 30_000 });
+	await enter(page, '-12.45');
+	await expect(page.getByTestId('charge-battery')).toHaveCount(0);
+	await expect(page.getByTestId('battery-read')).toContainText('\u221212.45 V at its posts');
+	await expect(page.getByTestId('battery-read')).toContainText('charged enough to go on');
+	await expect(card).not.toHaveAttribute('data-probe', BATTERY);
+});
