@@ -99,7 +99,10 @@ export interface DiagnoseResult {
 	suspects: SuspectOut[];
 	/** "single" when single faults explain the marks; "double" when only pairs do; "none" when nothing does. */
 	explainedBy: 'single' | 'double' | 'none';
-	probes: (Omit<ProbeSpec, 'meter' | 'order'> & { expected: { suspect: string; reading: number }[]; healthy: number })[];
+	/** `healthyBand`: what the harness as drawn reads there in a real vehicle (narrowed once the battery is read). */
+	probes: (Omit<ProbeSpec, 'meter' | 'order'> & { expected: { suspect: string; reading: number }[]; healthy: number; healthyBand: ReadingRange })[];
+	/** The bands in force (rows: probes, columns: suspects): the table's, narrowed once the battery is read. */
+	bands: (ReadingRange | null)[][];
 	minimalSet: { probes: string[]; cost: number; exact: boolean };
 	ambiguityGroups: string[][];
 	plan: { steps: ReturnType<typeof checklist>; expectedProbes: number; expectedCost: number };
@@ -524,7 +527,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		suspects: suspects.map((s) => ({ id: s.id, prior: s.chance, label: s.label })),
 		probes: specs.map((s) => ({ id: s.id, cost: s.cost, tolerance: s.tolerance, label: s.label, unit: s.unit })),
 		readings: readings.map((row) => row.map(round)),
-		bands: specs.map((_, p) => cands.map((_, h) => roundBand(bandAt(readings[p][h], spread.rows[p][h], spread.emf, spread.emf.low, spread.emf.high))))
+		bands: specs.map((sp, p) => cands.map((_, h) => roundBand(bandAt(readings[p][h], spread.rows[p][h], spread.emf, spread.emf.low, spread.emf.high), sp.unit)))
 	};
 	const probesOut = specs.map((s, i) => {
 		const { meter: _m, order: _o, ...rest } = s;
@@ -533,7 +536,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		return {
 			...rest,
 			healthy: round(healthyReading[i]),
-			healthyBand: roundBand(bandAt(healthyReading[i], spread.healthy[i]!, spread.emf, spread.emf.low, spread.emf.high)),
+			healthyBand: roundBand(bandAt(healthyReading[i], spread.healthy[i]!, spread.emf, spread.emf.low, spread.emf.high), s.unit),
 			expected: suspects.map((su, j) => ({ suspect: su.id, reading: table.readings[i][j] as number }))
 		};
 	});
@@ -547,6 +550,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		notes,
 		fallbacks,
 		table,
+		bands: table.bands!,
 		battery,
 		spread: emf ? spread : null,
 		groups: []
@@ -556,7 +560,11 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 }
 
 const round = (x: number) => Math.round(x * 1e6) / 1e6;
-const roundBand = (b: ReadingRange): ReadingRange => ({ low: round(b.low), high: round(b.high) });
+/** A band rounded as the table is; brightness and ohms cannot go below zero (the first-order sum can). */
+const roundBand = (b: ReadingRange, unit?: string): ReadingRange => {
+	const floor = unit === '%' || unit === 'Ω' ? 0 : -Infinity;
+	return { low: round(Math.max(floor, b.low)), high: round(Math.max(floor, b.high)) };
+};
 
 /**
  * A diagnosis planned again from readings taken: each reading weighs the suspects by how well it
@@ -583,6 +591,7 @@ export function withReadings(result: DiagnoseResult, readings: Readonly<Record<s
 	let table = result.table;
 	let battery = result.battery;
 	const batteryRead = battery ? readings[battery.probe] : undefined;
+	let probes = result.probes;
 	if (battery && result.spread && typeof batteryRead === 'number') {
 		const spread = result.spread;
 		const bp = table.probes.findIndex((q) => q.id === battery!.probe);
@@ -606,10 +615,15 @@ export function withReadings(result: DiagnoseResult, readings: Readonly<Record<s
 				// unlikely (the battery probe's band weighs it); its bands stay at a possible EMF.
 				const e = Math.min(envelope.high, Math.max(envelope.low, own.emf));
 				const de = t * own.perVolt;
-				return roundBand(bandAt(r, spread.rows[p][s]!, spread.emf, e - de, e + de));
+				return roundBand(bandAt(r, spread.rows[p][s]!, spread.emf, e - de, e + de), result.probes[p].unit);
 			})
 		);
 		table = { ...table, bands };
+		if (healthyEmf) {
+			const e = healthyEmf.emf;
+			const de = t * healthyEmf.perVolt;
+			probes = result.probes.map((q, p) => (p === bp ? q : { ...q, healthyBand: roundBand(bandAt(q.healthy, spread.healthy[p]!, spread.emf, e - de, e + de), q.unit) }));
+		}
 	}
 	const first = battery && battery.measured === undefined && readings[battery.probe] === undefined ? battery.probe : undefined;
 	const r = replan(table, taken, first ? { first } : {});
@@ -625,6 +639,8 @@ export function withReadings(result: DiagnoseResult, readings: Readonly<Record<s
 	return {
 		...result,
 		battery,
+		probes,
+		bands: table.bands ?? table.readings.map((row) => row.map((x) => (x === null ? null : { low: x, high: x }))),
 		minimalSet: { probes: cover.probes, cost: cover.cost, exact: cover.exact },
 		ambiguityGroups: cover.ambiguityGroups,
 		groups,

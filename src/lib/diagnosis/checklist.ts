@@ -28,7 +28,7 @@ export interface ChecklistInput {
 	diagram: { title: string };
 	diagnosis: Pick<DiagnosisJson, 'id' | 'title' | 'diagramRevision' | 'marks' | 'status' | 'createdAt' | 'foundLabel' | 'conclusion'>;
 	document: HarnessDocument;
-	result: Pick<DiagnoseResult, 'plan' | 'probes' | 'suspects' | 'readings' | 'explainedBy' | 'table' | 'groups' | 'battery'>;
+	result: Pick<DiagnoseResult, 'plan' | 'probes' | 'suspects' | 'readings' | 'explainedBy' | 'table' | 'bands' | 'groups' | 'battery'>;
 	meter: MeterProfile;
 	readings: readonly ReadingJson[];
 	/** When the checklist is printed (the header's date). */
@@ -318,7 +318,7 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 	const probeAt = new Map(result.probes.map((p, i) => [p.id, i]));
 	const suspectAt = new Map(result.suspects.map((x, i) => [x.id, i]));
 	const expectedText = (probe: string, suspect: string, unit: string, nominal: number | null) => {
-		const b = result.table.bands?.[probeAt.get(probe) ?? -1]?.[suspectAt.get(suspect) ?? -1];
+		const b = result.bands?.[probeAt.get(probe) ?? -1]?.[suspectAt.get(suspect) ?? -1];
 		return b ? formatBand(b, unit, overLimit) : formatReading(nominal, unit, overLimit);
 	};
 

@@ -33,7 +33,7 @@ function expectedAt(result: DiagnoseResult, p: number, round: (x: number) => num
 	const out = new Map<string, ExpectedBand>();
 	result.suspects.forEach((_, s) => {
 		const r = result.table.readings[p][s];
-		const b = result.table.bands?.[p]?.[s] ?? (r === null ? null : { low: r, high: r });
+		const b = result.bands?.[p]?.[s] ?? (r === null ? null : { low: r, high: r });
 		if (!b) return;
 		const low = round(b.low);
 		const high = round(b.high);
@@ -49,7 +49,7 @@ function detailOf(result: DiagnoseResult, i: number) {
 	const p = result.probes[i];
 	const round = rounder(p.unit);
 	// The engine gives each probe its healthy band (diagnose.ts) before its type names it.
-	const healthy = (p as { healthyBand?: Band }).healthyBand ?? { low: p.healthy, high: p.healthy };
+	const healthy = p.healthyBand ?? { low: p.healthy, high: p.healthy };
 	return {
 		place: p.place,
 		setting: p.setting,
