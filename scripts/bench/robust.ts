@@ -101,6 +101,8 @@ interface Setting {
 	started: Map<string, DiagnoseResult | Error>;
 	/** Wall-clock time of each starting diagnosis made (ms). */
 	startMs: number[];
+	/** Wall-clock time spent planning again after readings (ms), summed. */
+	replanMs: number;
 }
 
 function wholeHarness(doc: HarnessDocument): Region {
@@ -136,7 +138,8 @@ function makeSetting(name: string, group: Setting['group'], doc: HarnessDocument
 		healthy: new Map(specs.map((s, i) => [s.id, healthy[i]])),
 		partOut,
 		started: new Map(),
-		startMs: []
+		startMs: [],
+		replanMs: 0
 	};
 }
 
@@ -260,10 +263,13 @@ function hunt(setting: Setting, truth: string, marks: PartMark[], read: (id: str
 		}
 		readings[next] = read(next);
 		probes++;
+		const t = now();
 		try {
 			r = withReadings(start, readings, profile);
 		} catch {
 			return stuck('withReadings threw');
+		} finally {
+			setting.replanMs += now() - t;
 		}
 		if (r.readings?.unexplained?.length) return stuck('a true reading was refused');
 		if (r.readings && !r.readings.remaining.length) return stuck('no suspect left');
@@ -445,18 +451,22 @@ function tasksOf(refs: CaseRef[], keys: string[][]): CaseRef[][] {
 	return [...groups.values()].sort((a, b) => b.length - a.length || a[0].k - b[0].k);
 }
 
-type TaskDone = { rows: Row[]; startMs: number[] };
+type TaskDone = { rows: Row[]; startMs: number[]; replanMs: number; ms: number };
 
 function runTask(pool: Setting[], seed: number, task: CaseRef[]): TaskDone {
+	const t = now();
 	const rows = task.map((ref) => runCase(pool, seed, ref));
 	const startMs: number[] = [];
+	let replanMs = 0;
 	for (const s of pool) {
 		startMs.push(...s.startMs);
 		s.startMs.length = 0;
+		replanMs += s.replanMs;
+		s.replanMs = 0;
 		// No later task shares these marks (tasksOf), so the kept diagnoses can go.
 		s.started.clear();
 	}
-	return { rows, startMs };
+	return { rows, startMs, replanMs, ms: now() - t };
 }
 
 /** Hand the tasks to `workers` child processes, each taking the next task when done; in this process when one. */
@@ -554,6 +564,10 @@ export async function run(): Promise<void> {
 	});
 	const rows = results.flatMap((d) => d.rows).sort((a, b) => a.k - b.k);
 	const startMs = results.flatMap((d) => d.startMs);
+	const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);
+	const caseS = sum(results.map((d) => d.ms)) / 1000;
+	const startS = sum(startMs) / 1000;
+	const replanS = sum(results.map((d) => d.replanMs)) / 1000;
 
 	const pct = (n: number, of: number) => (of ? `${((100 * n) / of).toFixed(1)} %` : '—');
 	const mean = (xs: number[]) => (xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : NaN);
@@ -627,7 +641,10 @@ export async function run(): Promise<void> {
 		`  information bound (plan.ts huffmanLowerBound on the starting table): ${boundProbes.toFixed(2)} probes on average over ${bounded.length} cases; the plan ${planOnBounded.toFixed(2)} → ${(planOnBounded / boundProbes).toFixed(2)}× the bound`
 	);
 	console.log(
-		`  ${startMs.length} distinct starting diagnoses (cases with equal marks on one harness start alike): median ${quantile(startMs, 0.5).toFixed(0)} ms, p90 ${quantile(startMs, 0.9).toFixed(0)} ms, longest ${Math.max(...startMs).toFixed(0)} ms (${workers} at once); the cases took ${((now() - t0) / 1000).toFixed(0)} s`
+		`  ${startMs.length} distinct starting diagnoses (cases with equal marks on one harness start alike): median ${quantile(startMs, 0.5).toFixed(0)} ms, p90 ${quantile(startMs, 0.9).toFixed(0)} ms, longest ${Math.max(...startMs).toFixed(0)} ms (${workers} at once)`
+	);
+	console.log(
+		`  the cases took ${((now() - t0) / 1000).toFixed(0)} s on the clock; of ${caseS.toFixed(0)} s of work, ${startS.toFixed(0)} s starting diagnoses and ${replanS.toFixed(0)} s planning again after readings (the engine), ${(caseS - startS - replanS).toFixed(0)} s true worlds, readings and yardsticks (this bench)`
 	);
 
 	if (timedRuns !== 0) timings(Math.max(20, timedRuns));
