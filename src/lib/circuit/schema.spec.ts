@@ -117,6 +117,20 @@ describe('parseDocument', () => {
 		const r = parseDocument(d);
 		expect(!r.ok && r.errors[0].path).toBe('palette');
 	});
+	it('keeps a wire\'s "length measured" flag, reads documents without it as not measured, and refuses a non-boolean', () => {
+		const d = base() as any;
+		d.wires[1].lengthMeasured = true;
+		const r = parseDocument(d);
+		expect(r.ok).toBe(true);
+		if (!r.ok) return;
+		expect(r.document.wires[1].lengthMeasured).toBe(true);
+		// A document saved before the flag existed: same schema version, no field, nothing added.
+		expect(r.document.schemaVersion).toBe(1);
+		expect('lengthMeasured' in r.document.wires[0]).toBe(false);
+		d.wires[0].lengthMeasured = 'yes';
+		const bad = parseDocument(d);
+		expect(!bad.ok && bad.errors.map((e) => e.path)).toEqual(['wires[0].lengthMeasured']);
+	});
 	it('emptyDocument is valid', () => {
 		const e = emptyDocument({ systemVoltage: 6, earth: 'positive' });
 		expect(e.parts).toEqual([]);

@@ -85,6 +85,12 @@ export const WireSchema = z.object({
 	code: z.string().min(1).max(16),
 	size: WireSizeSchema.default({ mm2: 1 }),
 	lengthM: z.number().nonnegative().max(100).default(1),
+	/**
+	 * The length was measured on the vehicle, not read off the manual's drawing: a diagnosis holds
+	 * it as it is instead of ±50 % (uncertainty.ts). Absent means not measured, so older documents
+	 * read the same.
+	 */
+	lengthMeasured: z.boolean().optional(),
 	waypoints: z.array(PositionSchema).optional(),
 	notes: z.string().max(2000).optional()
 });

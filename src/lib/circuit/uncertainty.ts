@@ -7,7 +7,8 @@
  *   plus a surface charge after driving); running 13.5–14.5 V per 12 V (alternator practice); or
  *   the value measured at the posts once taken;
  * - incandescent lamp wattage and gauge heater, coil and load resistances ±10 % (from memory);
- * - wire lengths drawn from a manual ±50 % unless marked measured (our default);
+ * - wire lengths drawn from a manual ±50 % unless marked measured, on the drawing (a wire's
+ *   `lengthMeasured`) or for one diagnosis (`measuredWires`) (our default);
  * - senders: anywhere on their travel unless the restorer says the position is known;
  * - a healthy stabilizer's average 9.5–10.5 V per 12 V (enthusiast pages).
  *
@@ -77,6 +78,41 @@ export function withBattery(doc: HarnessDocument, scenario: Scenario, volts: num
 	};
 }
 
+/** Wires held at their drawn length: marked measured on the drawing (`lengthMeasured`) or named in `u.measuredWires`. */
+export function measuredWires(doc: HarnessDocument, u: Pick<Uncertainty, 'measuredWires'>): Set<string> {
+	const measured = new Set(u.measuredWires);
+	for (const w of doc.wires) if (w.lengthMeasured) measured.add(w.id);
+	return measured;
+}
+
+/** Most a battery range may say, per volt of the system: a charging 12 V system holds about 14.5 V (TRADE.md); twice is far past any. */
+const BATTERY_MOST_PER_VOLT = 2;
+
+/**
+ * Checks an uncertainty against the document it is for: every problem with its path (relative to
+ * the uncertainty). Known senders must be senders, measured wires wires, and the ranges volts a
+ * battery or stabilizer of this system could show.
+ */
+export function checkUncertainty(doc: HarnessDocument, u: Uncertainty): { path: string; message: string }[] {
+	const issues: { path: string; message: string }[] = [];
+	const system = doc.vehicle.systemVoltage;
+	if (u.battery) {
+		if (u.battery.low <= 0) issues.push({ path: 'battery.low', message: 'a battery range starts above 0 V' });
+		if (u.battery.high > system * BATTERY_MOST_PER_VOLT) issues.push({ path: 'battery.high', message: `${u.battery.high} V is far above what a ${system} V battery shows (at most ${system * BATTERY_MOST_PER_VOLT} V)` });
+	}
+	if (u.stabilizer.low <= 0) issues.push({ path: 'stabilizer.low', message: 'a stabilizer range starts above 0 V' });
+	if (u.stabilizer.high > 12) issues.push({ path: 'stabilizer.high', message: 'a stabilizer cannot give more than its input: at most 12 V per 12 V' });
+	const parts = new Map(doc.parts.map((p) => [p.id, p]));
+	u.knownSenders.forEach((id, i) => {
+		if (parts.get(id)?.kind !== 'sender') issues.push({ path: `knownSenders[${i}]`, message: `"${id}" is not a sender of this diagram` });
+	});
+	const wires = new Set(doc.wires.map((w) => w.id));
+	u.measuredWires.forEach((id, i) => {
+		if (!wires.has(id)) issues.push({ path: `measuredWires[${i}]`, message: `"${id}" is not a wire of this diagram` });
+	});
+	return issues;
+}
+
 export interface World {
 	/** The group moved and its end, e.g. `lamps:low`. */
 	id: string;
@@ -122,7 +158,7 @@ export function factorWorlds(doc: HarnessDocument, scenario: Scenario, u: Uncert
 			if (d) worlds.push({ id: `loads:${end}`, doc: d, scenario });
 		}
 		if (u.wireLength > 0) {
-			const measured = new Set(u.measuredWires);
+			const measured = measuredWires(doc, u);
 			if (doc.wires.some((w) => !measured.has(w.id)))
 				worlds.push({ id: `wires:${end}`, doc: { ...doc, wires: doc.wires.map((w) => (measured.has(w.id) ? w : { ...w, lengthM: w.lengthM * (1 + sign * u.wireLength) })) }, scenario });
 		}
