@@ -80,6 +80,7 @@ describe('changes between revisions', () => {
 				d.wires[1].to = { part: 'bat', terminal: '-' };
 				(d.wires[1] as Record<string, unknown>).size = { mm2: 2 };
 				(d.wires[1] as Record<string, unknown>).lengthM = 1.5;
+				(d.wires[1] as Record<string, unknown>).lengthMeasured = true;
 				d.vehicle.earth = 'positive';
 				d.palette = 'iec-60757';
 				d.wires[0].code = 'RD';
@@ -90,7 +91,7 @@ describe('changes between revisions', () => {
 			'Earth negative → positive',
 			'Colour codes trade-letters → iec-60757',
 			'Wire RD between 1.+ and 7.feed: code R → RD',
-			'Wire BK between 7.earth and 1.-: code B → BK; other end 9.stud → 1.-; size 1 mm² → 2 mm²; length 1 m → 1.5 m'
+			'Wire BK between 7.earth and 1.-: code B → BK; other end 9.stud → 1.-; size 1 mm² → 2 mm²; length 1 m → 1.5 m; length marked measured'
 		]);
 	});
 });

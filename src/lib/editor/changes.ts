@@ -87,6 +87,7 @@ export function documentChanges(before: Doc, after: Doc): Changes {
 		}
 		if (!same(o.size, w.size)) said.push(`size ${formatSize(o.size)} → ${formatSize(w.size)}`);
 		if (o.lengthM !== w.lengthM) said.push(`length ${o.lengthM} m → ${w.lengthM} m`);
+		if (!!o.lengthMeasured !== !!w.lengthMeasured) said.push(w.lengthMeasured ? 'length marked measured' : 'length no longer marked measured');
 		if ((o.notes ?? '') !== (w.notes ?? '')) said.push('notes edited');
 		if (said.length) changes.push({ kind: 'changed', what: 'wire', id: w.id, text: `${cap(newNames.wire(w))}: ${said.join('; ')}` });
 		else if (!same(o.waypoints ?? [], w.waypoints ?? [])) moved.wires++;

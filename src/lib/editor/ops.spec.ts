@@ -159,6 +159,15 @@ describe('wires', () => {
 		expect(w).toMatchObject({ size: { awg: 14 }, lengthM: 0.75, notes: 'behind dash' });
 	});
 
+	it('marks a length measured, and unmarking leaves the wire as a document without the field', () => {
+		const doc = sample();
+		const marked = valid(updateWire(doc, 'w1', { lengthMeasured: true }));
+		expect(marked.wires[0].lengthMeasured).toBe(true);
+		const unmarked = valid(updateWire(marked, 'w1', { lengthMeasured: false })).wires[0];
+		expect('lengthMeasured' in unmarked).toBe(false);
+		expect(unmarked).toEqual(doc.wires[0]);
+	});
+
 	it('changes palette by colour name (trade letters → IEC 60757)', () => {
 		// Trade N = brown → IEC BN; R/W = red/white → RD/WH; B = black → BK (IEC 60757 table).
 		const doc = valid(changePalette(sample(), 'iec-60757'));

@@ -341,7 +341,7 @@ export function addWire(doc: HarnessDocument, from: TerminalRef, to: TerminalRef
 	return { doc: { ...doc, wires: [...doc.wires, wire] }, id };
 }
 
-export type WirePatch = Partial<Pick<Wire, 'code' | 'size' | 'lengthM' | 'notes' | 'from' | 'to' | 'waypoints'>>;
+export type WirePatch = Partial<Pick<Wire, 'code' | 'size' | 'lengthM' | 'lengthMeasured' | 'notes' | 'from' | 'to' | 'waypoints'>>;
 
 /** Changes a wire, validating the code against the palette and the size and length ranges. */
 export function updateWire(doc: HarnessDocument, id: string, patch: WirePatch): HarnessDocument {
@@ -357,6 +357,11 @@ export function updateWire(doc: HarnessDocument, id: string, patch: WirePatch): 
 				throw new EditError('Length is in metres, from 0 to 100.', 'lengthM');
 			}
 			next.lengthM = patch.lengthM;
+		}
+		// Not measured is the field's absence, as in a document saved before it existed.
+		if (patch.lengthMeasured !== undefined) {
+			if (patch.lengthMeasured) next.lengthMeasured = true;
+			else delete next.lengthMeasured;
 		}
 		if (patch.notes !== undefined) next.notes = patch.notes || undefined;
 		if (patch.from) {
