@@ -5,7 +5,7 @@
  *
  * A file holds one or two tables, each starting with its header row and ended by a blank line:
  *  - the wire list: from part, from terminal, to part, to terminal, colour, size, length, notes
- *    (optional: from kind, to kind);
+ *    (optional: from kind, to kind, length measured);
  *  - optionally a part table: key, kind, label, location, terminals, notes.
  * A file whose first row is not a header is read as a wire list in the documented column order.
  * Lines starting with `#` before a row are comments.
@@ -41,6 +41,8 @@ export interface WireRow {
 	size?: WireSize;
 	/** Metres; missing when the cell was empty (default 1 m). */
 	lengthM?: number;
+	/** Whether the length was measured on the vehicle; missing when the cell was empty (left as it is). */
+	lengthMeasured?: boolean;
 	notes?: string;
 	fromKind?: PartKind;
 	toKind?: PartKind;
@@ -78,7 +80,7 @@ export interface WireListTable {
 export const WIRE_COLUMNS = ['from part', 'from terminal', 'to part', 'to terminal', 'colour', 'size', 'length', 'notes'] as const;
 export const PART_COLUMNS = ['key', 'kind', 'label', 'location', 'terminals', 'notes'] as const;
 
-type WireField = (typeof WIRE_COLUMNS)[number] | 'from kind' | 'to kind';
+type WireField = (typeof WIRE_COLUMNS)[number] | 'from kind' | 'to kind' | 'length measured';
 type PartField = (typeof PART_COLUMNS)[number];
 
 const WIRE_ALIASES: Record<WireField, string[]> = {
@@ -90,6 +92,7 @@ const WIRE_ALIASES: Record<WireField, string[]> = {
 	size: ['size', 'wire size', 'cross section', 'csa', 'mm2', 'size mm2', 'awg', 'size awg', 'gauge'],
 	length: ['length', 'length m', 'len', 'metres', 'meters', 'wire length'],
 	notes: ['notes', 'note', 'comment', 'comments', 'remarks'],
+	'length measured': ['length measured', 'measured', 'length is measured', 'length checked'],
 	'from kind': ['from kind', 'from type', 'from part kind'],
 	'to kind': ['to kind', 'to type', 'to part kind']
 };
@@ -369,6 +372,18 @@ export function readLength(raw: string, decimalComma: boolean): number | string 
 	return Math.round(metres * 1e6) / 1e6;
 }
 
+export const MEASURED_EXPECTED = 'yes or no (yes: the length was measured on the vehicle), or an empty cell';
+const YES = new Set(['yes', 'y', 'true', '1', 'x', 'measured']);
+const NO = new Set(['no', 'n', 'false', '0', 'not measured']);
+
+/** A "length measured" cell: yes or no in the words a spreadsheet uses. */
+export function readMeasured(raw: string): boolean | string {
+	const t = normaliseHeader(raw);
+	if (YES.has(t) || raw.trim() === '✓') return true;
+	if (NO.has(t)) return false;
+	return `"${raw}" is not yes or no`;
+}
+
 /** Limits from the document schema (src/lib/circuit/schema.ts). */
 const KEY_MAX = 16;
 const TERMINAL_MAX = 32;
@@ -520,6 +535,12 @@ function readWireRow(row: number, cells: string[], section: Extract<Section, { t
 		const l = readLength(length, decimalComma);
 		if (typeof l === 'string') problems.push({ row, column: col('length'), message: l, expected: LENGTH_EXPECTED });
 		else out.lengthM = l;
+	}
+	const measured = get('length measured');
+	if (measured) {
+		const m = readMeasured(measured);
+		if (typeof m === 'string') problems.push({ row, column: col('length measured'), message: m, expected: MEASURED_EXPECTED });
+		else out.lengthMeasured = m;
 	}
 	const notes = get('notes');
 	if (notes.length > NOTES_MAX) problems.push({ row, column: col('notes'), message: `notes are ${notes.length} characters long`, expected: `at most ${NOTES_MAX} characters` });

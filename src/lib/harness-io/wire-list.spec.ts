@@ -10,7 +10,7 @@ function comparable(doc: HarnessDocument) {
 	return {
 		parts: doc.parts.map((p) => ({ key: p.key, kind: p.kind, label: p.label, location: p.location, terminals: p.terminals, notes: p.notes })).sort((a, b) => a.key.localeCompare(b.key)),
 		wires: doc.wires
-			.map((w) => ({ from: `${key.get(w.from.part)} ${w.from.terminal}`, to: `${key.get(w.to.part)} ${w.to.terminal}`, code: w.code, size: w.size, lengthM: w.lengthM, notes: w.notes }))
+			.map((w) => ({ from: `${key.get(w.from.part)} ${w.from.terminal}`, to: `${key.get(w.to.part)} ${w.to.terminal}`, code: w.code, size: w.size, lengthM: w.lengthM, lengthMeasured: w.lengthMeasured === true, notes: w.notes }))
 			.sort((a, b) => `${a.from}>${a.to}`.localeCompare(`${b.from}>${b.to}`))
 	};
 }
@@ -19,7 +19,9 @@ const empty = () => emptyDocument({ systemVoltage: 12, earth: 'positive' });
 
 describe('planImport', () => {
 	it('rebuilds the demo harness’s parts and wires from its own CSV export', () => {
-		const demo = demoHarness();
+		// Two wires marked measured, so the "length measured" column carries both yes and no.
+		const drawn = demoHarness();
+		const demo = { ...drawn, wires: drawn.wires.map((w, i) => (i < 2 ? { ...w, lengthMeasured: true } : w)) };
 		const plan = planImport(empty(), readWireList(harnessSheetCsv(demo)));
 		expect(plan.issues).toEqual([]);
 		expect(parseDocument(plan.document).ok).toBe(true);
@@ -91,6 +93,37 @@ describe('planImport', () => {
 		expect(plan.document.wires).toHaveLength(1);
 	});
 
+	it('marks and unmarks measured lengths from the "length measured" column; an empty cell leaves the wire as it is', () => {
+		const doc = parseDocument({
+			schemaVersion: 1,
+			vehicle: { systemVoltage: 12, earth: 'negative' },
+			parts: [
+				{ id: 'bat', key: '1', kind: 'battery' },
+				{ id: 'sp', key: '5', kind: 'splice', terminals: ['1', '2', '3'] }
+			],
+			wires: [
+				{ id: 'w1', from: { part: 'bat', terminal: '+' }, to: { part: 'sp', terminal: '1' }, code: 'N', lengthMeasured: true },
+				{ id: 'w2', from: { part: 'bat', terminal: '-' }, to: { part: 'sp', terminal: '2' }, code: 'B', lengthMeasured: true }
+			]
+		});
+		if (!doc.ok) throw new Error('fixture');
+		const text = 'from part,from terminal,to part,to terminal,colour,length,measured\n1,+,5,1,N,0.4,no\n1,-,5,2,B,0.3,\n5,3,1,+,N,0.2,Yes\n';
+		const plan = planImport(doc.document, readWireList(text));
+		expect(plan.issues).toEqual([]);
+		const [w1, w2, w3] = plan.document.wires;
+		expect('lengthMeasured' in w1).toBe(false);
+		expect(w2).toMatchObject({ lengthM: 0.3, lengthMeasured: true });
+		expect(w3).toMatchObject({ lengthM: 0.2, lengthMeasured: true });
+	});
+
+	it('names the row and column of a "length measured" cell that is not yes or no', () => {
+		const text = 'from part,from terminal,to part,to terminal,colour,length measured\n1,+,5,1,N,yes\n1,-,5,2,B,maybe\n';
+		const table = readWireList(text);
+		expect(table.issues).toEqual([{ row: 3, column: 'length measured', message: '"maybe" is not yes or no', expected: expect.stringMatching(/^yes or no/) }]);
+		expect(table.badRows).toEqual([3]);
+		expect(table.wires.map((w) => [w.row, w.lengthMeasured])).toEqual([[2, true]]);
+	});
+
 	it('refuses to change the kind of an existing part', () => {
 		const doc = parseDocument({ schemaVersion: 1, vehicle: { systemVoltage: 12, earth: 'negative' }, parts: [{ id: 'l', key: '9', kind: 'lamp' }] });
 		if (!doc.ok) throw new Error('fixture');
@@ -117,7 +150,7 @@ describe('CSV export', () => {
 		expect(keys[0]).toBe('key,kind,label,location,terminals,notes');
 		expect(keys).toHaveLength(demo.parts.length + 2);
 		const wires = wireListCsv(demo).split('\r\n');
-		expect(wires[0]).toBe('from part,from terminal,to part,to terminal,colour,size,length m,notes');
+		expect(wires[0]).toBe('from part,from terminal,to part,to terminal,colour,size,length m,length measured,notes');
 		const first = demo.wires[0];
 		const key = (id: string) => demo.parts.find((p) => p.id === id)!.key;
 		expect(wires[1].startsWith(`${key(first.from.part)},${csvCell(first.from.terminal)},${key(first.to.part)},`)).toBe(true);

@@ -236,7 +236,10 @@ export function planImport(doc: HarnessDocument, table: WireListTable): ImportPl
 		};
 		if (at !== undefined) {
 			const old = wires[at];
-			const next = { ...old, ...fields };
+			const next: Wire = { ...old, ...fields };
+			// Not measured is the field's absence (schema.ts); an empty cell leaves the wire as it is.
+			if (g.row.lengthMeasured === true) next.lengthMeasured = true;
+			else if (g.row.lengthMeasured === false) delete next.lengthMeasured;
 			if (JSON.stringify(next) !== JSON.stringify(old)) {
 				wires[at] = next;
 				summary.updatedWires++;
@@ -247,7 +250,7 @@ export function planImport(doc: HarnessDocument, table: WireListTable): ImportPl
 		do id = `w-${nextWire++}`;
 		while (ids.has(id));
 		ids.add(id);
-		wires.push({ id, from, to, code: g.code, size: g.row.size ?? { mm2: 1 }, lengthM: g.row.lengthM ?? 1, ...(g.row.notes ? { notes: g.row.notes } : {}) });
+		wires.push({ id, from, to, code: g.code, size: g.row.size ?? { mm2: 1 }, lengthM: g.row.lengthM ?? 1, ...(g.row.lengthMeasured ? { lengthMeasured: true } : {}), ...(g.row.notes ? { notes: g.row.notes } : {}) });
 		byEnds.set(k, wires.length - 1);
 		summary.addedWires++;
 	}
@@ -324,12 +327,14 @@ export function keyTableCsv(doc: HarnessDocument, separator = ','): string {
 	return rows.join('\r\n') + '\r\n';
 }
 
-/** The wire list as CSV, parts named by key number. */
+/** The wire list as CSV, parts named by key number; "length measured" says yes or no for every wire. */
 export function wireListCsv(doc: HarnessDocument, separator = ','): string {
 	const keys = new Map(doc.parts.map((p) => [p.id, p.key]));
-	const rows = [line(['from part', 'from terminal', 'to part', 'to terminal', 'colour', 'size', 'length m', 'notes'], separator)];
+	const rows = [line(['from part', 'from terminal', 'to part', 'to terminal', 'colour', 'size', 'length m', 'length measured', 'notes'], separator)];
 	for (const w of doc.wires) {
-		rows.push(line([keys.get(w.from.part) ?? w.from.part, w.from.terminal, keys.get(w.to.part) ?? w.to.part, w.to.terminal, w.code, formatSize(w.size), String(w.lengthM), w.notes ?? ''], separator));
+		rows.push(
+			line([keys.get(w.from.part) ?? w.from.part, w.from.terminal, keys.get(w.to.part) ?? w.to.part, w.to.terminal, w.code, formatSize(w.size), String(w.lengthM), w.lengthMeasured ? 'yes' : 'no', w.notes ?? ''], separator)
+		);
 	}
 	return rows.join('\r\n') + '\r\n';
 }
