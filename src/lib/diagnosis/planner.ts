@@ -3,7 +3,7 @@
 // workers are not available.
 import type { HarnessDocument } from '../circuit/schema';
 import type { PlanReply, PlanRequest } from './plan.worker';
-import { planDiagnosis, type DiagnosisJson, type ReadingJson } from './session';
+import { planDiagnosis, type PlanInputs, type ReadingJson } from './session';
 import { planView, type PlanView } from './view';
 
 const here = (m: Omit<PlanRequest, 'id'>): PlanView => planView(planDiagnosis(m.document, m.diagnosis, m.readings), 'all');
@@ -47,9 +47,10 @@ export class Planner {
 		this.start();
 	}
 
-	plan(document: HarnessDocument, diagnosis: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'>, readings: ReadingJson[]): Promise<PlanView> {
+	plan(document: HarnessDocument, diagnosis: PlanInputs, readings: ReadingJson[]): Promise<PlanView> {
 		const w = this.start();
-		const message: Omit<PlanRequest, 'id'> = JSON.parse(JSON.stringify({ document, diagnosis: { scenario: diagnosis.scenario, marks: diagnosis.marks, meter: diagnosis.meter }, readings }));
+		const inputs: PlanInputs = { scenario: diagnosis.scenario, marks: diagnosis.marks, meter: diagnosis.meter, uncertainty: diagnosis.uncertainty ?? null };
+		const message: Omit<PlanRequest, 'id'> = JSON.parse(JSON.stringify({ document, diagnosis: inputs, readings }));
 		if (!w) return Promise.resolve().then(() => here(message));
 		const id = this.nextId++;
 		return new Promise((resolve, reject) => {

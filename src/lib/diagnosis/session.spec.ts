@@ -48,3 +48,23 @@ describe('planning again from the kept plan', () => {
 		expect(base.readings).toBeUndefined();
 	});
 });
+
+describe('the diagnosis\u2019s uncertainty reaches the planner', () => {
+	it('plans with the battery range the diagnosis stores, and with the defaults when it stores none', () => {
+		const doc = demoHarness();
+		const d = { scenario: defaultScenario(doc), marks: OPEN_HUNT.marks, meter: 'entry-dmm' as const };
+		// Defaults: 11.9–12.8 V at rest per 12 V (BCI rest table, TRADE.md).
+		expect(basePlan(doc, { ...d, uncertainty: null }).battery?.assumed).toEqual({ low: 11.9, high: 12.8 });
+		// Invented: a restorer who read 12.2 V on a charger's display this morning narrows it.
+		const narrowed = basePlan(doc, { ...d, uncertainty: { battery: { low: 12.1, high: 12.3 } } });
+		expect(narrowed.battery?.assumed.low).toBeCloseTo(12.1, 9);
+		// The model's own 12.6 V stays inside the range (uncertainty.ts batteryRange).
+		expect(narrowed.battery?.assumed.high).toBeGreaterThanOrEqual(12.3);
+		// A narrower battery range narrows the healthy band of a powered probe.
+		const width = (r: typeof narrowed, id: string) => {
+			const b = r.probes.find((p) => p.id === id)!.healthyBand;
+			return b.high - b.low;
+		};
+		expect(width(narrowed, 'volts:fuse-ign:in')).toBeLessThan(width(basePlan(doc, d), 'volts:fuse-ign:in'));
+	});
+});

@@ -6,6 +6,7 @@ import { ENTRY_DMM, METER_PROFILES, MeterProfileSchema, type MeterProfile } from
 import type { Scenario } from '../circuit/scenario';
 import type { HarnessDocument } from '../circuit/schema';
 import type { PartMark } from '../circuit/symptoms';
+import type { Uncertainty, UncertaintyInput } from '../circuit/uncertainty';
 
 export type ReadingOutcome = 'value' | 'over-range' | 'unreachable';
 
@@ -33,6 +34,8 @@ export interface DiagnosisJson {
 	scenario: Scenario;
 	marks: PartMark[];
 	meter: string | MeterProfile;
+	/** What the drawing cannot know, as ranges; null: the defaults (TRADE.md). */
+	uncertainty: Uncertainty | null;
 	status: 'open' | 'concluded';
 	foundSuspect: string | null;
 	foundLabel: string;
@@ -70,13 +73,16 @@ export interface DiagnosisPlan {
 	used: Record<string, number | 'OL' | 'unreachable'>;
 }
 
+/** What a plan is made from, besides the document and the readings. */
+export type PlanInputs = Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'> & { uncertainty?: UncertaintyInput | null };
+
 /** The plan before any reading: the expensive part (circuit solves for every suspect), worth keeping. */
-export function basePlan(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'>): DiagnoseResult {
-	return diagnose({ doc, scenario: d.scenario, marks: d.marks, meter: meterOf(d.meter) });
+export function basePlan(doc: HarnessDocument, d: PlanInputs): DiagnoseResult {
+	return diagnose({ doc, scenario: d.scenario, marks: d.marks, meter: meterOf(d.meter), uncertainty: d.uncertainty ?? undefined });
 }
 
 /** The plan with the readings taken; `base` (basePlan of the same document and diagnosis) saves the solves. */
-export function planDiagnosis(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'>, readings: readonly ReadingJson[], base?: DiagnoseResult): DiagnosisPlan {
+export function planDiagnosis(doc: HarnessDocument, d: PlanInputs, readings: readonly ReadingJson[], base?: DiagnoseResult): DiagnosisPlan {
 	const used = readingsForPlan(readings);
 	const start = base ?? basePlan(doc, d);
 	const meter = meterOf(d.meter);

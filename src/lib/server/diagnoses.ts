@@ -1,7 +1,8 @@
 // Diagnoses: one fault hunt on a vehicle, planned on its diagram as it stood at one revision.
 // Readings are appended (never edited; a later reading of the same probe counts instead, and a
 // reading can be struck); each carries a client-made id, so a reading queued offline and sent
-// again is stored once. Marks, scenario and the conclusion change under a version check.
+// again is stored once. Marks, scenario, what the drawing cannot know (the uncertainty) and the
+// conclusion change under a version check.
 import { and, asc, desc, eq, sql } from 'drizzle-orm';
 import type { User as SessionUser } from 'lucia';
 import { z } from 'zod';
@@ -9,7 +10,8 @@ import { DiagnoseError } from '../circuit/diagnose';
 import { METER_PROFILES, MeterProfileSchema } from '../circuit/meter-profiles';
 import type { HarnessDocument } from '../circuit/schema';
 import { MARKS } from '../circuit/symptoms';
-import { basePlan, planDiagnosis, type DiagnosisJson, type DiagnosisPlan, type ReadingJson } from '../diagnosis/session';
+import { checkUncertainty, UncertaintySchema, type Uncertainty } from '../circuit/uncertainty';
+import { basePlan, planDiagnosis, type DiagnosisJson, type DiagnosisPlan, type PlanInputs, type ReadingJson } from '../diagnosis/session';
 import type { DiagnoseResult } from '../circuit/diagnose';
 import { db } from './db';
 import { diagnoses, diagnosisReadings, diagramRevisions, users, type Diagnosis, type DiagnosisReading, type Diagram } from './db/schema';
@@ -26,7 +28,9 @@ export const StartSchema = z.object({
 	title: z.string().trim().max(200).optional(),
 	scenario: z.unknown().optional(),
 	marks: z.array(MarkSchema).min(1, 'mark at least one part').max(40),
-	meter: MeterSchema.default('entry-dmm')
+	meter: MeterSchema.default('entry-dmm'),
+	/** What the drawing cannot know; absent: the defaults (TRADE.md). */
+	uncertainty: UncertaintySchema.optional()
 });
 
 export const ReadingInputSchema = z
@@ -58,6 +62,8 @@ export const UpdateSchema = z.object({
 	marks: z.array(MarkSchema).min(1, 'mark at least one part').max(40).optional(),
 	scenario: z.unknown().optional(),
 	meter: MeterSchema.optional(),
+	/** New ranges for what the drawing cannot know; null goes back to the defaults. */
+	uncertainty: UncertaintySchema.nullable().optional(),
 	/** Reopen a concluded hunt (the conclusion is kept until concluded again). */
 	status: z.literal('open').optional()
 });
@@ -72,6 +78,7 @@ export function toJson(d: Diagnosis): DiagnosisJson {
 		scenario: d.scenario as DiagnosisJson['scenario'],
 		marks: d.marks as DiagnosisJson['marks'],
 		meter: d.meter as DiagnosisJson['meter'],
+		uncertainty: uncertaintyOfRow(d.uncertainty),
 		status: d.status,
 		foundSuspect: d.foundSuspect,
 		foundLabel: d.foundLabel,
@@ -83,6 +90,20 @@ export function toJson(d: Diagnosis): DiagnosisJson {
 		updatedAt: d.updatedAt.toISOString(),
 		concludedAt: d.concludedAt?.toISOString() ?? null
 	};
+}
+
+/** A stored uncertainty read back through its schema (a range stored before a default was added gets it); unreadable: the defaults. */
+function uncertaintyOfRow(stored: unknown): Uncertainty | null {
+	if (stored === null || stored === undefined) return null;
+	const parsed = UncertaintySchema.safeParse(stored);
+	return parsed.success ? parsed.data : null;
+}
+
+/** The uncertainty checked against the document it is for, or a 400 naming each field. */
+function checkedUncertainty(doc: HarnessDocument, u: Uncertainty | null | undefined): void {
+	if (!u) return;
+	const issues = checkUncertainty(doc, u);
+	if (issues.length) throw new BadRequest('Some ranges need fixing.', issues.map((i) => ({ path: `uncertainty.${i.path}`, message: i.message })));
 }
 
 function readingJson(r: DiagnosisReading & { takenByName?: string | null }): ReadingJson {
@@ -110,14 +131,17 @@ export async function documentAt(diagramId: string, revision: number): Promise<H
 	return documentToPlan(row.document);
 }
 
-// Plans before readings, per diagnosis version (marks, scenario and meter change the version;
-// the document is fixed by the diagnosis's revision). The circuit solves are the cost; readings
-// then re-plan from the kept prediction table. A small LRU: most recently used last.
+// Plans before readings, per diagnosis version and uncertainty (marks, scenario, meter and
+// uncertainty change the version; the document is fixed by the diagnosis's revision). The circuit
+// solves are the cost; readings then re-plan from the kept prediction table. A small LRU: most
+// recently used last.
 const KEEP = 64;
 const kept = new Map<string, DiagnoseResult>();
+type Keyed = PlanInputs & { id?: string; version?: number };
+const keyOf = (d: Keyed) => (d.id ? `${d.id}:${d.version}:${JSON.stringify(d.uncertainty ?? null)}` : null);
 
-function base(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'> & { id?: string; version?: number }): DiagnoseResult {
-	const key = d.id ? `${d.id}:${d.version}` : null;
+function base(doc: HarnessDocument, d: Keyed): DiagnoseResult {
+	const key = keyOf(d);
 	const hit = key ? kept.get(key) : undefined;
 	if (hit) {
 		kept.delete(key!);
@@ -125,15 +149,17 @@ function base(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' 
 		return hit;
 	}
 	const made = basePlan(doc, d);
-	if (key) {
-		kept.set(key, made);
-		if (kept.size > KEEP) kept.delete(kept.keys().next().value!);
-	}
+	if (key) remember(key, made);
 	return made;
 }
 
+function remember(key: string, result: DiagnoseResult): void {
+	kept.set(key, result);
+	if (kept.size > KEEP) kept.delete(kept.keys().next().value!);
+}
+
 /** Plans, turning the planner's field errors into a 400. */
-function plan(doc: HarnessDocument, d: Pick<DiagnosisJson, 'scenario' | 'marks' | 'meter'> & { id?: string; version?: number }, readings: ReadingJson[]): DiagnosisPlan {
+function plan(doc: HarnessDocument, d: Keyed, readings: ReadingJson[]): DiagnosisPlan {
 	try {
 		return planDiagnosis(doc, d, readings, base(doc, d));
 	} catch (e) {
@@ -150,14 +176,16 @@ export async function start(user: SessionUser, diagram: Diagram, input: z.output
 	const scenario = scenarioToPlan(doc, input.scenario);
 	const names = new Map(doc.parts.map((p) => [p.id, p]));
 	const title = input.title || describeMarks(input.marks.map((m) => ({ ...m, key: names.get(m.part)?.key ?? m.part, label: names.get(m.part)?.label ?? '' })));
-	const draft = { scenario, marks: input.marks, meter: input.meter };
+	checkedUncertainty(doc, input.uncertainty);
+	const draft = { scenario, marks: input.marks, meter: input.meter, uncertainty: input.uncertainty ?? null };
 	const planned = plan(doc, draft, []);
 	const [row] = await db
 		.insert(diagnoses)
 		.values({ diagramId: diagram.id, vehicleId: diagram.vehicleId, startedBy: user.id, diagramRevision: diagram.revision, title, ...draft })
 		.returning();
-	kept.set(`${row.id}:${row.version}`, planned.result);
-	return { diagnosis: toJson(row), plan: planned };
+	const diagnosis = toJson(row);
+	remember(keyOf(diagnosis)!, planned.result);
+	return { diagnosis, plan: planned };
 }
 
 const MARK_WORDS: Record<(typeof MARKS)[number], string> = { 'reads-low': 'reads low', 'reads-high': 'reads high', dead: 'dead', erratic: 'erratic', normal: 'normal' };
@@ -261,18 +289,27 @@ async function writeVersioned(d: DiagnosisJson, version: number, set: Partial<ty
 	return toJson(row);
 }
 
+/**
+ * Changes the marks, scenario, meter, uncertainty, title or status in one write under the version
+ * check: a stale version changes nothing (StaleVersion). A new plan input is planned first, so a
+ * plan that cannot be made is a 400 before anything is stored.
+ */
 export async function update(loaded: Loaded, input: z.output<typeof UpdateSchema>): Promise<DiagnosisJson> {
 	const next = {
 		scenario: input.scenario !== undefined ? scenarioToPlan(loaded.document, input.scenario) : loaded.diagnosis.scenario,
 		marks: input.marks ?? loaded.diagnosis.marks,
-		meter: input.meter ?? loaded.diagnosis.meter
+		meter: input.meter ?? loaded.diagnosis.meter,
+		uncertainty: input.uncertainty !== undefined ? input.uncertainty : loaded.diagnosis.uncertainty
 	};
-	if (input.marks || input.scenario !== undefined || input.meter) plan(loaded.document, next, []);
-	return writeVersioned(loaded.diagnosis, input.version, {
+	checkedUncertainty(loaded.document, next.uncertainty);
+	const replanned = input.marks || input.scenario !== undefined || input.meter || input.uncertainty !== undefined ? plan(loaded.document, next, []) : null;
+	const saved = await writeVersioned(loaded.diagnosis, input.version, {
 		...next,
 		...(input.title ? { title: input.title } : {}),
 		...(input.status === 'open' ? { status: 'open' as const, concludedAt: null } : {})
 	});
+	if (replanned) remember(keyOf(saved)!, replanned.result);
+	return saved;
 }
 
 export async function conclude(loaded: Loaded, input: z.output<typeof ConcludeSchema>): Promise<DiagnosisJson> {

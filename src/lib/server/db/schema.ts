@@ -329,6 +329,9 @@ export const diagnoses = pgTable(
 		marks: jsonb('marks').notNull(),
 		// A built-in meter profile id or a whole profile.
 		meter: jsonb('meter').notNull(),
+		// What the drawing cannot know, as ranges (circuit/uncertainty.ts UncertaintySchema); null:
+		// the defaults (TRADE.md, "Tolerances for the uncertainty model").
+		uncertainty: jsonb('uncertainty'),
 		status: diagnosisStatus('status').notNull().default('open'),
 		// The suspect id the user concluded on (may be null: "found something else").
 		foundSuspect: text('found_suspect'),
@@ -337,7 +340,7 @@ export const diagnoses = pgTable(
 		conclusion: text('conclusion').notNull().default(''),
 		// ["Instrument voltage stabilizer (19)", ...] — free words, what went into the vehicle.
 		partsReplaced: jsonb('parts_replaced').notNull().default(sql`'[]'::jsonb`),
-		// Counts changes to marks/scenario/status, so two phones cannot overwrite each other blind.
+		// Counts changes to marks/scenario/uncertainty/status, so two phones cannot overwrite each other blind.
 		version: integer('version').notNull().default(1),
 		concludedAt: timestamp('concluded_at', { withTimezone: true, mode: 'date' }),
 		createdAt: createdAt(),

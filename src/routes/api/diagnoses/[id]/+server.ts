@@ -16,7 +16,10 @@ export const GET: RequestHandler = endpoint(async ({ locals, params }) => {
 	return json({ ...loaded, vehicle: vehicles.toJson(vehicle), plan: planView(diagnosisStore.planOf(loaded)), canEdit: level !== 'view' && level !== 'comment' });
 });
 
-/** PATCH /api/diagnoses/:id { version, title?, marks?, scenario?, meter?, status?: "open" } → { diagnosis, plan }; 409 when stale. */
+/**
+ * PATCH /api/diagnoses/:id { version, title?, marks?, scenario?, meter?, uncertainty?, status?: "open" }
+ * → { diagnosis, plan }; 409 when stale (nothing changed). `uncertainty: null` goes back to the defaults.
+ */
 export const PATCH: RequestHandler = endpoint(async ({ locals, params, request }) => {
 	const { diagnosis } = await requireDiagnosis(locals, params.id, 'edit');
 	const input = await readBody(request, diagnosisStore.UpdateSchema);

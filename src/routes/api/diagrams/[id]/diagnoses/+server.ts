@@ -16,8 +16,9 @@ export const GET: RequestHandler = endpoint(async ({ locals, params }) => {
 });
 
 /**
- * POST /api/diagrams/:id/diagnoses { revision, marks, scenario?, meter?, title? }
- * → 201 { diagnosis, plan }. Planned on the document at `revision`, which must be the latest.
+ * POST /api/diagrams/:id/diagnoses { revision, marks, scenario?, meter?, uncertainty?, title? }
+ * → 201 { diagnosis, plan }. Planned on the document at `revision`, which must be the latest;
+ * `uncertainty` (circuit/uncertainty.ts) says what the drawing cannot know, defaults when absent.
  */
 export const POST: RequestHandler = endpoint(async ({ locals, params, request }) => {
 	const { diagram } = await requireDiagram({ ...locals, linkToken: null }, params.id, 'edit');

@@ -1,0 +1,1 @@
+ALTER TABLE "diagnoses" ADD COLUMN "uncertainty" jsonb;
