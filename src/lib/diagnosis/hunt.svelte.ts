@@ -3,7 +3,9 @@
 // plan re-plans without a network, and every probe's full entry is at hand). Readings go to the server through the API; a queued one is
 // sent again until the server has it, and the server stores each clientId once.
 import { api } from '$lib/api';
+import type { Scenario } from '$lib/circuit/scenario';
 import type { HarnessDocument } from '$lib/circuit/schema';
+import type { Uncertainty } from '$lib/circuit/uncertainty';
 import { Planner } from './planner';
 import { mergeReadings, ReadingQueue, type KeyValueStore } from './queue';
 import type { DiagnosisJson, ReadingJson, ReadingOutcome } from './session';
@@ -205,6 +207,19 @@ export class Hunt {
 		const r = await api.post<{ diagnosis: DiagnosisJson }>(`/api/diagnoses/${this.diagnosis.id}/conclude`, { version: this.diagnosis.version, ...input });
 		if (!r.ok) return { ok: false, error: r.status === 0 ? 'Concluding needs the network; your readings are kept. Try again when it is back.' : r.error, issues: r.issues };
 		this.diagnosis = r.data.diagnosis;
+		return { ok: true };
+	}
+
+	/**
+	 * New ranges for what the drawing cannot know (and the known senders' positions), stored under
+	 * the version check, then planned again here. A stale version (409) stores nothing; the message
+	 * comes back for the form to keep showing beside the person's own values.
+	 */
+	async setRanges(uncertainty: Uncertainty | null, scenario: Scenario | null): Promise<{ ok: true } | { ok: false; error: string; issues: { path: string; message: string }[]; stale: boolean }> {
+		const r = await api.patch<{ diagnosis: DiagnosisJson; plan: PlanView }>(`/api/diagnoses/${this.diagnosis.id}`, { version: this.diagnosis.version, uncertainty, ...(scenario ? { scenario } : {}) });
+		if (!r.ok) return { ok: false, error: r.status === 0 ? 'Changing the ranges needs the network; nothing was changed. Try again when it is back.' : r.error, issues: r.issues, stale: r.status === 409 };
+		this.diagnosis = r.data.diagnosis;
+		await this.replan();
 		return { ok: true };
 	}
 
