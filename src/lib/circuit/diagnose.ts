@@ -142,6 +142,8 @@ interface Candidate {
 	ohms?: number;
 	/** The fault's size in this variant (Ω or set-point factor) when its mode has a range. */
 	size?: number;
+	/** The hypothesis's own changes, before any fuse it blows: other sizes are made from them. */
+	origin?: Change[];
 }
 
 /** Add a fuse the fault overloads (current above its rating) as blown, until none is. */
@@ -300,7 +302,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		const grid = h.kind === 'node:short' || h.kind === 'stabilizer:low' || h.kind === 'stabilizer:high' ? gridOf(h) : null;
 		const sized = grid ? grid.map((size) => ({ ...h, id: `${h.site}:${size}`, changes: atSize(h, size), size })) : [{ ...h, ...(h.ohms !== undefined ? { size: h.ohms } : {}) }];
 		for (const v of sized) {
-			const cand: Candidate = { id: v.id, label: v.label, kind: v.kind, prior: v.prior, changes: v.changes, place: [v.place], site: v.site, ohms: v.ohms, size: v.size };
+			const cand: Candidate = { id: v.id, label: v.label, kind: v.kind, prior: v.prior, changes: v.changes, place: [v.place], site: v.site, ohms: v.ohms, size: v.size, origin: h.changes };
 			variants.push(RAISES_CURRENT.test(v.kind) ? settleFuses(base, c, cand) : cand);
 		}
 	}
@@ -337,7 +339,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	// sender's travel moves a gauge's ratio by a third at most): the rest cannot get there.
 	const evaluate = (cands: Candidate[], worlds: readonly MarksWorld[]) => {
 		const nominal = judge(worlds[0], cands, [MARK_SLACK, 0.35]);
-		const out = cands.map((h, hi) => ({ h, explains: nominal[hi][0].explains, fit: nominal[hi][0].explains ? nominal[hi][0].fit : 0, predicted: nominal[hi][0].predicted }));
+		const out = cands.map((h, hi) => ({ h, explains: nominal[hi][0].explains, near: nominal[hi][1].explains, fit: nominal[hi][0].explains ? nominal[hi][0].fit : 0, predicted: nominal[hi][0].predicted }));
 		const near = cands.map((_, hi) => hi).filter((hi) => !nominal[hi][0].explains && nominal[hi][1].explains);
 		if (near.length)
 			for (const w of worlds.slice(1)) {
@@ -353,6 +355,27 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		return out;
 	};
 	let evaluated = evaluate(variants, marksWorlds);
+	// Some marks fit only a narrow window of sizes (most parts dead and one still glowing): where
+	// a sample of a site nearly fits, the sizes between it and its neighbours are tried too.
+	for (let round = 0; round < 3; round++) {
+		const bySize = new Map<string, (typeof evaluated)[number][]>();
+		for (const e of evaluated) if (e.h.size !== undefined && e.h.origin) (bySize.get(e.h.site) ?? bySize.set(e.h.site, []).get(e.h.site)!).push(e);
+		const extra: Candidate[] = [];
+		for (const list of bySize.values()) {
+			if (list.some((e) => e.explains)) continue;
+			list.sort((a, b) => a.h.size! - b.h.size!);
+			for (let i = 0; i + 1 < list.length; i++) {
+				const [a, b] = [list[i], list[i + 1]];
+				if (!(a.near || b.near)) continue;
+				const size = a.h.kind.startsWith('stabilizer') ? (a.h.size! + b.h.size!) / 2 : Math.sqrt(a.h.size! * b.h.size!);
+				const v: Candidate = { ...a.h, id: `${a.h.site}:${Number(size.toPrecision(3))}`, changes: atSize({ kind: a.h.kind as FaultKind, changes: a.h.origin! }, size), size, ...(a.h.ohms !== undefined ? { ohms: Number(size.toPrecision(3)) } : {}) };
+				extra.push(RAISES_CURRENT.test(v.kind) ? settleFuses(base, c, v) : v);
+			}
+		}
+		if (!extra.length) break;
+		evaluated = [...evaluated, ...evaluate(extra, marksWorlds)];
+	}
+
 	let explainedBy: DiagnoseResult['explainedBy'] = 'single';
 	let found = evaluated.filter((e) => e.explains);
 	if (!found.length && abnormal.length) {
@@ -388,6 +411,8 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	type Chosen = { rep: Candidate; fit: number; span: Candidate[]; size?: { low: number; high: number } };
 	const chosenAll: Chosen[] = [];
 	for (const list of bySite.values()) {
+		// In order of size, so a suspect's span runs between neighbouring samples.
+		if (list.every((e) => e.h.size !== undefined)) list.sort((a, b) => a.h.size! - b.h.size!);
 		const ok = list.map((e, i) => (e.explains ? i : -1)).filter((i) => i >= 0);
 		if (!ok.length) continue;
 		const best = ok.reduce((a, i) => (list[i].fit > list[a].fit ? i : a), ok[0]);
