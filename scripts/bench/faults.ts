@@ -34,7 +34,7 @@ import { probeNode } from '../../src/lib/circuit/meters';
 import { candidateProbes, feedWalkOrder, tableReading } from '../../src/lib/circuit/probes';
 import type { PredictionTable } from '../../src/lib/circuit/outcomes';
 import { solveCircuit } from '../../src/lib/circuit/solve';
-import { markOf, observedElement, quantity, type PartMark } from '../../src/lib/circuit/symptoms';
+import { marksSeen } from '../../src/lib/circuit/testing/worlds';
 import { generateHarness, prng } from '../../src/lib/circuit/testing/generate';
 
 const now = () => performance.now();
@@ -148,25 +148,6 @@ export async function timing(): Promise<void> {
 	}
 }
 
-/** The marks a person would make with this fault present: every observable part in the region that misbehaves, and a few that do not. */
-function plantedMarks(doc: ReturnType<typeof generateHarness>['doc'], scenario: ReturnType<typeof generateHarness>['scenario'], changes: Parameters<typeof faultedCircuit>[1], c: ReturnType<typeof buildCircuit>, healthy: ReturnType<typeof solveCircuit>): PartMark[] {
-	const s = solveCircuit(faultedCircuit(c, changes));
-	const marks: PartMark[] = [];
-	const normal: PartMark[] = [];
-	for (const p of doc.parts) {
-		const o = observedElement(c, p);
-		if (!o) continue;
-		const e = c.elements[o.element];
-		const h = quantity(o.judged, healthy.g[o.element], healthy.at(e.a) - healthy.at(e.b));
-		if (!(h > 1e-9)) continue;
-		const q = quantity(o.judged, s.g[o.element], s.at(e.a) - s.at(e.b));
-		const mark = markOf(o.judged, q / h);
-		(mark === 'normal' ? normal : marks).push({ part: p.id, mark });
-	}
-	void scenario;
-	return marks.length ? [...marks, ...normal.slice(0, 2)] : [];
-}
-
 export async function quality(): Promise<void> {
 	const want = 50;
 	// Work allowed to the exact search for each case's optimum (suspect × probe visits).
@@ -186,7 +167,7 @@ export async function quality(): Promise<void> {
 		const r = prng(seed);
 		const faults = generateHypotheses(c).filter((h) => h.kind !== 'none');
 		const planted = r.pick(faults);
-		const marks = plantedMarks(doc, scenario, planted.changes, c, healthy);
+		const marks = marksSeen(c, healthy, planted.changes);
 		if (!marks.length) {
 			skipped++;
 			continue;

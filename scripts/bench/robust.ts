@@ -18,7 +18,7 @@
  *
  * Marks: each observable part (symptoms.ts) that draws current in the true world without the
  * fault is judged by its quantity with the fault against without (markOf); every abnormal one is
- * marked, and the first two normal ones beside them (as faults.ts's plantedMarks). A fuse the fault
+ * marked, and the first two normal ones beside them (testing/worlds.ts marksSeen). A fuse the fault
  * overloads blows first (diagnose.ts settleFuses, on the true circuit). A fault that leaves every
  * part normal in either world is not noticed: another case is drawn, and the count printed.
  * Readings: each probe the plan asks for is read on the true world with the fault (candidate
@@ -58,14 +58,13 @@ import { ENTRY_DMM } from '../../src/lib/circuit/meter-profiles';
 import { probeNode } from '../../src/lib/circuit/meters';
 import { nodeOfTerminal } from '../../src/lib/circuit/nets';
 import { huffmanLowerBound } from '../../src/lib/circuit/plan';
-import { Base, faultedCircuit } from '../../src/lib/circuit/predict';
+import { Base } from '../../src/lib/circuit/predict';
 import { candidateProbes, feedWalkOrder, type ProbeSpec } from '../../src/lib/circuit/probes';
 import { defaultScenario, type Scenario } from '../../src/lib/circuit/scenario';
 import type { HarnessDocument } from '../../src/lib/circuit/schema';
-import { solveCircuit, type Solution } from '../../src/lib/circuit/solve';
-import { markOf, observedElement, quantity, type PartMark } from '../../src/lib/circuit/symptoms';
+import type { PartMark } from '../../src/lib/circuit/symptoms';
 import { generateHarness, prng, type Prng } from '../../src/lib/circuit/testing/generate';
-import { drawFault, drawWorld, meterShows, nominalWorld, restorerScenario, type ShownKind, type TrueWorld } from '../../src/lib/circuit/testing/worlds';
+import { drawFault, drawWorld, marksSeen, meterShows, nominalWorld, restorerScenario, type ShownKind, type TrueWorld } from '../../src/lib/circuit/testing/worlds';
 import { prepareTrace, type TracePoint, type Tracer } from '../../src/lib/circuit/trace';
 import { OPEN_HUNT } from '../../src/lib/diagnosis/demo';
 import { readingsIf } from '../../src/lib/circuit/what-if';
@@ -155,24 +154,6 @@ function settings(): Setting[] {
 	return out;
 }
 
-/** The marks a person makes in a world with a fault: every observable part that misbehaves, and up to two that do not (as faults.ts's plantedMarks). */
-function marksIn(c: Circuit, healthy: Solution, changes: readonly Change[]): PartMark[] {
-	const s = solveCircuit(faultedCircuit(c, changes));
-	const marks: PartMark[] = [];
-	const normal: PartMark[] = [];
-	for (const p of c.doc.parts) {
-		const o = observedElement(c, p);
-		if (!o) continue;
-		const e = c.elements[o.element];
-		const h = quantity(o.judged, healthy.g[o.element], healthy.at(e.a) - healthy.at(e.b));
-		if (!(h > 1e-9)) continue;
-		const q = quantity(o.judged, s.g[o.element], s.at(e.a) - s.at(e.b));
-		const mark = markOf(o.judged, q / h);
-		(mark === 'normal' ? normal : marks).push({ part: p.id, mark });
-	}
-	return marks.length ? [...marks, ...normal.slice(0, 2)] : [];
-}
-
 /** One world with its fault in place, ready to be read. */
 interface Planted {
 	world: TrueWorld;
@@ -187,7 +168,7 @@ function plant(world: TrueWorld, changes: Change[]): Planted {
 	const base = new Base(c);
 	// A fuse the fault overloads blows in the true world too.
 	const settled = settleFuses(base, c, { changes, label: '' }).changes;
-	return { world, c, base, changes: settled, marks: marksIn(c, base.solution, settled) };
+	return { world, c, base, changes: settled, marks: marksSeen(c, base.solution, settled) };
 }
 
 /** True readings of a planted world by probe id, as the meter shows them; each probe read once per case. */

@@ -706,15 +706,16 @@ export function explainPairs(input: Pick<DiagnoseInput, 'doc' | 'scenario' | 'me
 	const profile = input.meter ?? ENTRY_DMM;
 	const c = buildCircuit(doc, scenario);
 	const base = new Base(c);
-	const hyps = new Map(generateHypotheses(c, { sweep: SIZE_GRIDS.resistive }).map((h) => [h.id, h]));
-	const bySite = new Map<string, Hypothesis>();
-	for (const h of hyps.values()) if (!bySite.has(h.site) || h.ohms === 20) bySite.set(h.site, h);
+	// One hypothesis per site, each suspect taken at the size that fits its marks best.
+	const bySite = new Map(generateHypotheses(c, { sweep: [1] }).map((h) => [h.site, h]));
 	const lead = result.readings.remaining
 		.slice(0, PAIR_POOL)
 		.map((x) => result.suspects.find((s) => s.id === x.suspect))
-		.filter((s): s is SuspectOut => !!s && s.kind !== 'double')
-		.map((s) => ({ s, h: hyps.get(s.id) ?? bySite.get(s.site) }))
-		.filter((x): x is { s: SuspectOut; h: Hypothesis } => !!x.h);
+		.filter((s): s is SuspectOut => !!s && s.kind !== 'double' && bySite.has(s.site))
+		.map((s) => {
+			const h = bySite.get(s.site)!;
+			return { s, changes: s.typical !== undefined ? atSize(h, s.typical) : h.changes };
+		});
 	const read = Object.entries(readings).filter((e): e is [string, number] => typeof e[1] === 'number');
 	const whole: Region = { parts: new Set(doc.parts.map((p) => p.id)), wires: new Set(doc.wires.map((w) => w.id)), nodes: new Set(doc.parts.flatMap((p) => p.terminals.map((t) => nodeOfTerminal(p, t)))) };
 	const specs = candidateProbes(doc, scenario, c, base.solution, whole, {
@@ -723,7 +724,7 @@ export function explainPairs(input: Pick<DiagnoseInput, 'doc' | 'scenario' | 'me
 	}).filter((sp) => read.some(([id]) => id === sp.id));
 	if (specs.length < read.length || lead.length < 2) return result;
 	const pairs: { a: SuspectOut; b: SuspectOut; changes: Change[] }[] = [];
-	for (let i = 0; i < lead.length; i++) for (let j = i + 1; j < lead.length; j++) pairs.push({ a: lead[i].s, b: lead[j].s, changes: [...lead[i].h.changes, ...lead[j].h.changes] });
+	for (let i = 0; i < lead.length; i++) for (let j = i + 1; j < lead.length; j++) pairs.push({ a: lead[i].s, b: lead[j].s, changes: [...lead[i].changes, ...lead[j].changes] });
 	const got = probeReadings(doc, scenario, c, base, pairs, specs, profile);
 	const fits = pairs.findIndex((_, k) =>
 		specs.every((sp, p) => {

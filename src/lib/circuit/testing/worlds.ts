@@ -19,7 +19,11 @@
  * Also here: a sized fault's true size over its mode's span, and what a 3½-digit meter shows for a
  * true value (its error and its display), so a test can read a true world as a person would.
  */
+import type { Circuit } from '../circuit';
 import { atSize, sizeRange, type Change, type Hypothesis } from '../faults';
+import { faultedCircuit } from '../predict';
+import { solveCircuit, type Solution } from '../solve';
+import { markOf, observedElement, quantity, type PartMark } from '../symptoms';
 import type { MeterProfile } from '../meter-profiles';
 import { chargingVoltage } from '../parts';
 import type { Scenario } from '../scenario';
@@ -179,4 +183,25 @@ export function meterShows(
 function toStep(x: number, step: number): number {
 	const decimals = Math.max(0, -Math.floor(Math.log10(step) + 1e-9));
 	return Number((Math.round(x / step) * step).toFixed(decimals)) || 0;
+}
+
+/**
+ * The marks a person makes with a fault present: every observable part that misbehaves against
+ * the same harness without it, and up to two that do not (the benchmarks' planted cases).
+ */
+export function marksSeen(c: Circuit, healthy: Solution, changes: readonly Change[]): PartMark[] {
+	const s = solveCircuit(faultedCircuit(c, changes));
+	const marks: PartMark[] = [];
+	const normal: PartMark[] = [];
+	for (const p of c.doc.parts) {
+		const o = observedElement(c, p);
+		if (!o) continue;
+		const e = c.elements[o.element];
+		const h = quantity(o.judged, healthy.g[o.element], healthy.at(e.a) - healthy.at(e.b));
+		if (!(h > 1e-9)) continue;
+		const q = quantity(o.judged, s.g[o.element], s.at(e.a) - s.at(e.b));
+		const mark = markOf(o.judged, q / h);
+		(mark === 'normal' ? normal : marks).push({ part: p.id, mark });
+	}
+	return marks.length ? [...marks, ...normal.slice(0, 2)] : [];
 }
