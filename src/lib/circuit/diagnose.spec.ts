@@ -1,7 +1,10 @@
 // Diagnosis on the invented demo harness and small hand-built circuits, each case reasoned by hand.
 import { describe, expect, it } from 'vitest';
 import { demoHarness, withOppositeEarth } from './demo';
-import { diagnose } from './diagnose';
+import { diagnose, FUSE_BLOWS, settleFuses } from './diagnose';
+import { buildCircuit } from './circuit';
+import { regionOf, type Change } from './faults';
+import { Base, evaluateHypothesis } from './predict';
 import { acceptOf } from './outcomes';
 import { readingsIf } from './what-if';
 import { defaultScenario } from './scenario';
@@ -159,5 +162,84 @@ describe('re-planning from readings', () => {
 	});
 	it('names a bad mark by its path', () => {
 		expect(() => diagnose({ doc: demo, scenario, marks: [{ part: 'fuse-ign', mark: 'dead' }] })).toThrow(/marks\[0\]\.part/);
+	});
+});
+
+describe('a drawing as the vehicle has it', () => {
+	const lampScenario = defaultScenario(lampCircuit);
+	const c = buildCircuit(lampCircuit, lampScenario);
+	const base = new Base(c);
+	const shortAt = (ohms: number) => settleFuses(base, c, { changes: [{ type: 'to-chassis', node: c.terminalNode({ part: 'lamp', terminal: 'feed' }), ohms }], label: 'short' });
+	const fuseAmps = (changes: Change[]) => {
+		const ev = evaluateHypothesis(base, changes);
+		const k = c.elements.findIndex((e) => e.ref.kind === 'part' && e.ref.part === 'fuse' && e.ref.role === 'fuse');
+		return Math.abs(ev.gOf(k) * (ev.at(c.elements[k].a) - ev.at(c.elements[k].b)));
+	};
+	it('a fuse run a little over its rating holds; one at 2–3 times it blows', () => {
+		// ISO 8820-3's time-current limits for blade fuses (recalled from memory): 110 % of the
+		// rating is carried for 100 hours, 135 % opens within minutes. The fuse here is 10 A.
+		expect(FUSE_BLOWS).toBe(1.35);
+		const mild = shortAt(1.1);
+		expect(fuseAmps(mild.changes) / 10).toBeGreaterThan(1.05);
+		expect(fuseAmps(mild.changes) / 10).toBeLessThan(1.3);
+		expect(mild.label).not.toMatch(/blows/);
+		const hard = shortAt(0.4);
+		expect(fuseAmps(hard.changes.slice(0, 1)) / 10).toBeGreaterThan(2);
+		expect(hard.label).toMatch(/fuse 2 blows/);
+	});
+	it('a fuse drawn too small for its loads is the drawing\u2019s, said in the notes, and no fault blows it by a few percent', () => {
+		// A 150 W lamp draws 150 / 12 = 12.5 A at 12 V (P = V·I): more than the 10 A fuse.
+		const big = assertDocument({ ...lampCircuit, parts: lampCircuit.parts.map((p) => (p.id === 'lamp' ? { ...p, params: { watts: 150 } } : p)) });
+		const r = diagnose({ doc: big, scenario: defaultScenario(big), marks: [{ part: 'lamp', mark: 'reads-low' }] });
+		expect(r.notes.some((n) => /Fuse 2 carries 1\d\.\d A .* more than its 10 A rating/.test(n))).toBe(true);
+		expect(r.suspects.some((s) => s.id.startsWith('joint:w2:'))).toBe(true);
+		expect(r.suspects.every((s) => !/fuse 2 blows/.test(s.label))).toBe(true);
+	});
+	it('a part that draws next to nothing (a lamp behind 1 kΩ) is off to a person: its mark is not used', () => {
+		// By hand: 12.6 V over 1 kΩ + 28.8 Ω (a 5 W lamp) is 12 mA; the lamp gets 0.35 V, 4 mW of
+		// its 5 W: no glow (power ∝ V²).
+		const dim = assertDocument({
+			...lampCircuit,
+			parts: [...lampCircuit.parts, { id: 'res', key: '6', kind: 'resistor', params: { resistance: 1000 } }, { id: 'pilot', key: '7', kind: 'lamp', params: { watts: 5 } }],
+			wires: [
+				...lampCircuit.wires,
+				{ id: 'w5', from: { part: 'fuse', terminal: 'out' }, to: { part: 'res', terminal: '1' }, code: 'R' },
+				{ id: 'w6', from: { part: 'res', terminal: '2' }, to: { part: 'pilot', terminal: 'feed' }, code: 'R' },
+				{ id: 'w7', from: { part: 'pilot', terminal: 'earth' }, to: { part: 'earth', terminal: 'stud' }, code: 'B' }
+			]
+		});
+		const r = diagnose({ doc: dim, scenario: defaultScenario(dim), marks: [{ part: 'lamp', mark: 'dead' }, { part: 'pilot', mark: 'normal' }] });
+		expect(r.notes.some((n) => /^Part 7 is off in this scenario/.test(n))).toBe(true);
+		expect(r.notes.some((n) => /^Part 3 is off/.test(n))).toBe(false);
+	});
+	it('a part reached first from a neighbour and then marked itself brings its own wiring in (a gauge\u2019s sender)', () => {
+		// Two parts on one fused feed; the gauge earths through its sender. Marking the lamp
+		// first reaches the gauge from the fuse with no depth left; marking the gauge must still
+		// walk on to its sender, where an open sender kills the gauge.
+		const doc = assertDocument({
+			schemaVersion: 1,
+			vehicle: { systemVoltage: 12, earth: 'negative' },
+			parts: [
+				{ id: 'bat', key: '1', kind: 'battery' },
+				{ id: 'strap', key: '2', kind: 'earth-point' },
+				{ id: 'fuse', key: '3', kind: 'fuse' },
+				{ id: 'lamp', key: '4', kind: 'lamp', params: { watts: 5 } },
+				{ id: 'gauge', key: '5', kind: 'gauge' },
+				{ id: 'sender', key: '6', kind: 'sender' },
+				{ id: 'earth', key: '7', kind: 'earth-point' }
+			],
+			wires: [
+				{ id: 'w1', from: { part: 'bat', terminal: '-' }, to: { part: 'strap', terminal: 'stud' }, code: 'B' },
+				{ id: 'w2', from: { part: 'bat', terminal: '+' }, to: { part: 'fuse', terminal: 'in' }, code: 'N' },
+				{ id: 'w3', from: { part: 'fuse', terminal: 'out' }, to: { part: 'lamp', terminal: 'feed' }, code: 'W' },
+				{ id: 'w4', from: { part: 'lamp', terminal: 'earth' }, to: { part: 'earth', terminal: 'stud' }, code: 'B' },
+				{ id: 'w5', from: { part: 'fuse', terminal: 'out' }, to: { part: 'gauge', terminal: 'feed' }, code: 'W' },
+				{ id: 'w6', from: { part: 'gauge', terminal: 'sender' }, to: { part: 'sender', terminal: 'feed' }, code: 'G/B' },
+				{ id: 'w7', from: { part: 'sender', terminal: 'earth' }, to: { part: 'earth', terminal: 'stud' }, code: 'B' }
+			]
+		});
+		const sc = defaultScenario(doc);
+		expect(regionOf(doc, sc, ['lamp', 'gauge']).parts.has('sender')).toBe(true);
+		expect(regionOf(doc, sc, ['gauge', 'lamp']).parts.has('sender')).toBe(true);
 	});
 });

@@ -22,7 +22,7 @@ import { candidateProbes, CAUTIONS, setupScenario, tableReading, type ProbeKind,
 import type { Location } from './parts';
 import type { Scenario } from './scenario';
 import type { HarnessDocument } from './schema';
-import { explain, observedElement, quantity, type Judged, type PartMark } from './symptoms';
+import { explain, observedElement, quantity, seenOn, type Judged, type PartMark } from './symptoms';
 import { batteryRange, CHARGE_BELOW_PER_12, factorWorlds, uncertaintyOf, withBattery, type UncertaintyInput } from './uncertainty';
 import { planningView, type ReadingRange } from './outcomes';
 import { groupAction } from './groups';
@@ -146,20 +146,40 @@ interface Candidate {
 	origin?: Change[];
 }
 
-/** Add a fuse the fault overloads (current above its rating) as blown, until none is. */
-export function settleFuses<H extends Pick<Candidate, 'changes' | 'label'>>(base: Base, c: Circuit, h: H): H {
-	const fuses = c.doc.parts.filter((p) => p.kind === 'fuse');
+/**
+ * Current over a fuse's rating at which it is taken to blow: automotive blade fuses carry 110 % of
+ * their rating for 100 hours and open at 135 % within minutes (ISO 8820-3 time-current limits,
+ * recalled from memory). Below it a fuse run hot still conducts, as it does in the vehicle.
+ */
+export const FUSE_BLOWS = 1.35;
+/** A fault blows a fuse only when it raises the fuse's current this much over the harness without it (a drawn rating too small is the drawing's, not the fault's). */
+const FUSE_RISE = 1.5;
+
+/** Amps through each fuse of the harness as drawn: a fault blows a fuse only by raising them. */
+export function fuseCurrents(base: Base, c: Circuit): Map<string, { element: number; amps: number; rating: number; key: string }> {
+	const out = new Map<string, { element: number; amps: number; rating: number; key: string }>();
+	const s = base.solution;
+	for (const f of c.doc.parts) {
+		if (f.kind !== 'fuse') continue;
+		const k = c.elements.findIndex((e) => e.ref.kind === 'part' && e.ref.part === f.id && e.ref.role === 'fuse');
+		if (k < 0) continue;
+		const e = c.elements[k];
+		out.set(f.id, { element: k, amps: Math.abs(s.g[k] * (s.at(e.a) - s.at(e.b))), rating: f.params.rating, key: f.key });
+	}
+	return out;
+}
+
+/** Add a fuse the fault overloads (FUSE_BLOWS over its rating, and well above its current without the fault) as blown, until none is. */
+export function settleFuses<H extends Pick<Candidate, 'changes' | 'label'>>(base: Base, c: Circuit, h: H, healthy = fuseCurrents(base, c)): H {
 	let cur = h;
 	for (let round = 0; round < 3; round++) {
 		const ev = evaluateHypothesis(base, cur.changes);
 		let worst: { element: number; ratio: number; key: string } | null = null;
-		for (const f of fuses) {
-			if (f.kind !== 'fuse') continue;
-			const k = c.elements.findIndex((e) => e.ref.kind === 'part' && e.ref.part === f.id && e.ref.role === 'fuse');
-			const e = c.elements[k];
-			const amps = Math.abs(ev.gOf(k) * (ev.at(e.a) - ev.at(e.b)));
-			const ratio = amps / f.params.rating;
-			if (ratio > 1 && (!worst || ratio > worst.ratio)) worst = { element: k, ratio, key: f.key };
+		for (const f of healthy.values()) {
+			const e = c.elements[f.element];
+			const amps = Math.abs(ev.gOf(f.element) * (ev.at(e.a) - ev.at(e.b)));
+			const ratio = amps / f.rating;
+			if (ratio > FUSE_BLOWS && amps > FUSE_RISE * f.amps && (!worst || ratio > worst.ratio)) worst = { element: f.element, ratio, key: f.key };
 		}
 		if (!worst) break;
 		cur = { ...cur, changes: [...cur.changes, { type: 'element', element: worst.element, ohms: null }], label: `${cur.label} (fuse ${worst.key} blows)` };
@@ -280,7 +300,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	const used: number[] = [];
 	input.marks.forEach((m, i) => {
 		const p = parts.get(m.part)!;
-		if (!(healthy[i] > 1e-9)) notes.push(`Part ${p.key} draws nothing in this scenario, so its mark is not used: switch it on in the scenario.`);
+		if (!seenOn(c, observed[i].element, observed[i].judged, healthy[i])) notes.push(`Part ${p.key} is off in this scenario (it draws next to nothing), so its mark is not used: switch it on in the scenario.`);
 		else used.push(i);
 	});
 	const marks = used.map((i) => input.marks[i]);
@@ -289,6 +309,16 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	const abnormal = marks.filter((m) => m.mark !== 'normal').map((m) => m.part);
 	const region = regionOf(doc, scenario, abnormal.length ? abnormal : marks.map((m) => m.part));
 
+	const fuses = fuseCurrents(base, c);
+	for (const f of fuses.values())
+		if (f.amps > f.rating) notes.push(`Fuse ${f.key} carries ${f.amps.toFixed(1)} A in the harness as drawn, more than its ${f.rating} A rating: check the rating and the loads on the drawing.`);
+	c.relays.forEach((r, k) => {
+		const v = base.coilVolts.get(r.part)!;
+		if (v >= r.dropOut && v < r.pullIn)
+			notes.push(
+				`Relay ${parts.get(r.part)!.key}'s coil gets ${v.toFixed(1)} V in the harness as drawn, between its drop-out (${r.dropOut.toFixed(1)} V) and pull-in (${r.pullIn.toFixed(1)} V): it stays as it was, taken here as ${base.energisedAt[k] ? 'pulled in' : 'released'}. Check its coil feed on the drawing; in the vehicle, listen for it.`
+			);
+	});
 	// Every size a sized mode can have, sampled on its grid (faults.ts SIZE_GRIDS).
 	const variants: Candidate[] = [];
 	// Suspects are chosen by effect, not by adjacency: a chafed short anywhere draws its current
@@ -303,7 +333,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		const sized = grid ? grid.map((size) => ({ ...h, id: `${h.site}:${size}`, changes: atSize(h, size), size })) : [{ ...h, ...(h.ohms !== undefined ? { size: h.ohms } : {}) }];
 		for (const v of sized) {
 			const cand: Candidate = { id: v.id, label: v.label, kind: v.kind, prior: v.prior, changes: v.changes, place: [v.place], site: v.site, ohms: v.ohms, size: v.size, origin: h.changes };
-			variants.push(RAISES_CURRENT.test(v.kind) ? settleFuses(base, c, cand) : cand);
+			variants.push(RAISES_CURRENT.test(v.kind) ? settleFuses(base, c, cand, fuses) : cand);
 		}
 	}
 
@@ -331,7 +361,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 				const q = judged[mi] === 'lamp' ? lampPower(w, h, mi, amps) : amps;
 				return h0[used[mi]] > 1e-12 ? q / h0[used[mi]] : 1;
 			});
-			return slacks.map((slack) => explain({ kind: h.kind === 'double' ? 'joint:resistive' : h.kind }, marks, judged, ratios, slack));
+			return slacks.map((slack) => explain({ kind: h.kind === 'double' ? 'joint:resistive' : h.kind }, marks, judged, ratios, slack, Math.min(slack, MARK_SLACK)));
 		});
 	};
 	// Explained in some world; fit as in the nominal one where it explains there, else the best
@@ -369,7 +399,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 				if (!(a.near || b.near)) continue;
 				const size = a.h.kind.startsWith('stabilizer') ? (a.h.size! + b.h.size!) / 2 : Math.sqrt(a.h.size! * b.h.size!);
 				const v: Candidate = { ...a.h, id: `${a.h.site}:${Number(size.toPrecision(3))}`, changes: atSize({ kind: a.h.kind as FaultKind, changes: a.h.origin! }, size), size, ...(a.h.ohms !== undefined ? { ohms: Number(size.toPrecision(3)) } : {}) };
-				extra.push(RAISES_CURRENT.test(v.kind) ? settleFuses(base, c, v) : v);
+				extra.push(RAISES_CURRENT.test(v.kind) ? settleFuses(base, c, v, fuses) : v);
 			}
 		}
 		if (!extra.length) break;
@@ -622,6 +652,13 @@ export function withReadings(result: DiagnoseResult, readings: Readonly<Record<s
 		const bp = table.probes.findIndex((q) => q.id === battery!.probe);
 		const tol = table.probes[bp].tolerance;
 		const t = tol.abs + tol.rel * Math.abs(batteryRead);
+		// The EMFs a reading allows: the meter's tolerance, and how far the battery's own reading
+		// moves at one EMF with everything else (loads drawing more sag the posts).
+		const emfSpan = (nominal: number, sp: Spread) => {
+			const lo = emfFromReading(nominal, sp, spread.emf, batteryRead - t - Math.max(0, sp.high - nominal));
+			const hi = emfFromReading(nominal, sp, spread.emf, batteryRead + t + Math.max(0, nominal - sp.low));
+			return lo && hi ? { low: Math.min(lo.emf, hi.emf), high: Math.max(lo.emf, hi.emf) } : null;
+		};
 		const healthyEmf = emfFromReading(result.probes[bp].healthy, spread.healthy[bp]!, spread.emf, batteryRead);
 		battery = {
 			...battery,
@@ -634,21 +671,17 @@ export function withReadings(result: DiagnoseResult, readings: Readonly<Record<s
 		const bands = table.readings.map((row, p) =>
 			row.map((r, s) => {
 				if (r === null) return null;
-				const own = emfFromReading(table.readings[bp][s] as number, spread.rows[bp][s]!, spread.emf, batteryRead);
+				const own = emfSpan(table.readings[bp][s] as number, spread.rows[bp][s]!);
 				if (!own || p === bp) return table.bands?.[p]?.[s] ?? null;
 				// A suspect whose own load would put the battery outside its possible range is
 				// unlikely (the battery probe's band weighs it); its bands stay at a possible EMF.
-				const e = Math.min(envelope.high, Math.max(envelope.low, own.emf));
-				const de = t * own.perVolt;
-				return roundBand(bandAt(r, spread.rows[p][s]!, spread.emf, e - de, e + de), result.probes[p].unit);
+				const clip = (e: number) => Math.min(envelope.high, Math.max(envelope.low, e));
+				return roundBand(bandAt(r, spread.rows[p][s]!, spread.emf, clip(own.low), clip(own.high)), result.probes[p].unit);
 			})
 		);
 		table = { ...table, bands };
-		if (healthyEmf) {
-			const e = healthyEmf.emf;
-			const de = t * healthyEmf.perVolt;
-			probes = result.probes.map((q, p) => (p === bp ? q : { ...q, healthyBand: roundBand(bandAt(q.healthy, spread.healthy[p]!, spread.emf, e - de, e + de), q.unit) }));
-		}
+		const healthySpan = emfSpan(result.probes[bp].healthy, spread.healthy[bp]!);
+		if (healthySpan) probes = result.probes.map((q, p) => (p === bp ? q : { ...q, healthyBand: roundBand(bandAt(q.healthy, spread.healthy[p]!, spread.emf, healthySpan.low, healthySpan.high), q.unit) }));
 	}
 	const first = battery && battery.measured === undefined && readings[battery.probe] === undefined ? battery.probe : undefined;
 	const r = replan(table, taken, first ? { first } : {});

@@ -447,7 +447,7 @@ export function regionOf(doc: HarnessDocument, scenario: Scenario, partIds: read
 	const tracer = prepareTrace(doc, scenario);
 	const parts = new Map(doc.parts.map((p) => [p.id, p]));
 	const region: Region = { parts: new Set(), wires: new Set(), nodes: new Set() };
-	const done = new Set<string>();
+	const done = new Map<string, number>();
 	const addPoint = (pt: TracePoint) => {
 		if (pt.type === 'node') region.nodes.add(pt.node);
 		else if (pt.type === 'wire') region.wires.add(pt.wire);
@@ -493,8 +493,9 @@ export function regionOf(doc: HarnessDocument, scenario: Scenario, partIds: read
 		return [...found];
 	};
 	const visit = (partId: string, depth: number) => {
-		if (done.has(partId)) return;
-		done.add(partId);
+		// A part first reached from a neighbour (less depth left) is walked again when marked itself.
+		if ((done.get(partId) ?? -1) >= depth) return;
+		done.set(partId, depth);
 		region.parts.add(partId);
 		const part = parts.get(partId)!;
 		for (const side of ['feed', 'earth'] as const) {

@@ -58,6 +58,23 @@ export function quantity(judged: Judged, g: number, volts: number): number {
 	return judged === 'lamp' ? g * volts * volts : Math.abs(g * volts);
 }
 
+/**
+ * Below this share of what a part takes straight across the system voltage it is off to a person
+ * (a lamp with no visible glow, a gauge needle at rest, a motor still): a sneak path's few
+ * milliamps through a part that is switched off are not its "normal". Invented: a lamp below
+ * about a tenth of its voltage does not glow (power ∝ V², so 1 % of rated power); other parts
+ * below 2 % of their full current.
+ */
+export const OFF_BELOW: Record<Judged, number> = { lamp: 0.01, gauge: 0.02, current: 0.02 };
+
+/** Is a part drawing enough in a solved circuit to be seen working (and so to be marked)? */
+export function seenOn(c: Circuit, element: number, judged: Judged, q: number): boolean {
+	const v = c.doc.vehicle.systemVoltage;
+	const g = c.elements[element].gClosed;
+	const full = judged === 'lamp' ? g * v * v : g * v;
+	return q > OFF_BELOW[judged] * full;
+}
+
 /** The mark a ratio to healthy earns (erratic aside). */
 export function markOf(judged: Judged, ratio: number): Exclude<Mark, 'erratic'> {
 	const t = MARK_THRESHOLDS[judged];
@@ -106,8 +123,12 @@ export const FORGIVE_FROM = 4;
 
 const MARK_ORDER: Record<Exclude<Mark, 'erratic'>, number> = { dead: 0, 'reads-low': 1, normal: 2, 'reads-high': 3 };
 
-/** Does a hypothesis, with these ratios per mark, explain every mark (each within `slack`, see markFits)? */
-export function explain(h: Pick<Hypothesis, 'kind'>, marks: readonly PartMark[], judged: readonly Judged[], ratios: readonly number[], slack = 0): Explanation {
+/**
+ * Does a hypothesis, with these ratios per mark, explain every mark (each within `slack`, see
+ * markFits)? `sideSlack` is the margin of the side-by-side rule below (the marks' own slack unless
+ * given: a wide slack that looks for near fits must not also demand wide gaps between parts).
+ */
+export function explain(h: Pick<Hypothesis, 'kind'>, marks: readonly PartMark[], judged: readonly Judged[], ratios: readonly number[], slack = 0, sideSlack = slack): Explanation {
 	let fit = 1;
 	let explains = true;
 	let misses = 0;
@@ -138,7 +159,7 @@ export function explain(h: Pick<Hypothesis, 'kind'>, marks: readonly PartMark[],
 				const a = marks[i].mark;
 				const b = marks[j].mark;
 				if (judged[i] !== judged[j] || a === 'erratic' || b === 'erratic') continue;
-				if (MARK_ORDER[a] < MARK_ORDER[b] && ratios[i] * (1 + slack) > ratios[j]) {
+				if (MARK_ORDER[a] < MARK_ORDER[b] && ratios[i] * (1 + sideSlack) > ratios[j]) {
 					explains = false;
 					break;
 				}

@@ -23,7 +23,7 @@ import type { Circuit } from '../circuit';
 import { atSize, sizeRange, type Change, type Hypothesis } from '../faults';
 import { faultedCircuit } from '../predict';
 import { solveCircuit, type Solution } from '../solve';
-import { markOf, observedElement, quantity, type PartMark } from '../symptoms';
+import { markOf, observedElement, quantity, seenOn, type PartMark } from '../symptoms';
 import type { MeterProfile } from '../meter-profiles';
 import { chargingVoltage } from '../parts';
 import type { Scenario } from '../scenario';
@@ -186,8 +186,9 @@ function toStep(x: number, step: number): number {
 }
 
 /**
- * The marks a person makes with a fault present: every observable part that misbehaves against
- * the same harness without it, and up to two that do not (the benchmarks' planted cases).
+ * The marks a person makes with a fault present: every observable part seen working (symptoms.ts
+ * seenOn) that misbehaves against the same harness without it, and up to two that do not (the
+ * benchmarks' planted cases).
  */
 export function marksSeen(c: Circuit, healthy: Solution, changes: readonly Change[]): PartMark[] {
 	const s = solveCircuit(faultedCircuit(c, changes));
@@ -198,7 +199,7 @@ export function marksSeen(c: Circuit, healthy: Solution, changes: readonly Chang
 		if (!o) continue;
 		const e = c.elements[o.element];
 		const h = quantity(o.judged, healthy.g[o.element], healthy.at(e.a) - healthy.at(e.b));
-		if (!(h > 1e-9)) continue;
+		if (!seenOn(c, o.element, o.judged, h)) continue;
 		const q = quantity(o.judged, s.g[o.element], s.at(e.a) - s.at(e.b));
 		const mark = markOf(o.judged, q / h);
 		(mark === 'normal' ? normal : marks).push({ part: p.id, mark });
