@@ -118,6 +118,9 @@ export function markFits(judged: Judged, ratio: number, mark: Exclude<Mark, 'err
 	return ratio >= t.low / k && ratio <= t.high * k;
 }
 
+/** Two parts judged alike whose quantities are within this fraction look the same side by side (invented). */
+export const SIDE_ALIKE = 0.02;
+
 /** Marks from which one may be a step off (invented: with many parts marked, one borderline judgement is likely). */
 export const FORGIVE_FROM = 4;
 
@@ -151,18 +154,23 @@ export function explain(h: Pick<Hypothesis, 'kind'>, marks: readonly PartMark[],
 		fit *= 0.25;
 	}
 	// Two parts judged alike and marked differently are seen side by side: the one marked lower
-	// must really read lower, by more than the slack (a stabilizer that moves both gauges alike
-	// cannot make one read low and the other normal — common practice, TRADE.md).
+	// must really read lower. Alike to within SIDE_ALIKE, they cannot be told apart (a stabilizer
+	// that moves both gauges alike cannot make one read low and the other normal — common
+	// practice, TRADE.md); closer than the slack, the marks are a borderline judgement, kept at a
+	// quarter of the fit.
+	let close = false;
 	if (explains && slack > 0)
 		for (let i = 0; i < marks.length && explains; i++)
 			for (let j = 0; j < marks.length; j++) {
 				const a = marks[i].mark;
 				const b = marks[j].mark;
-				if (judged[i] !== judged[j] || a === 'erratic' || b === 'erratic') continue;
-				if (MARK_ORDER[a] < MARK_ORDER[b] && ratios[i] * (1 + sideSlack) > ratios[j]) {
+				if (judged[i] !== judged[j] || a === 'erratic' || b === 'erratic' || !(MARK_ORDER[a] < MARK_ORDER[b])) continue;
+				if (ratios[i] * (1 + SIDE_ALIKE) > ratios[j]) {
 					explains = false;
 					break;
 				}
+				if (ratios[i] * (1 + sideSlack) > ratios[j]) close = true;
 			}
+	if (explains && close) fit *= 0.25;
 	return { explains, fit, predicted };
 }
