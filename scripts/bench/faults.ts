@@ -26,12 +26,12 @@ import { buildCircuit } from '../../src/lib/circuit/circuit';
 import { minimalProbeSet } from '../../src/lib/circuit/cover';
 import { diagnose } from '../../src/lib/circuit/diagnose';
 import { generateHypotheses, regionOf } from '../../src/lib/circuit/faults';
-import { ENTRY_DMM } from '../../src/lib/circuit/meter-profiles';
+import { ENTRY_DMM, tableReading } from '../../src/lib/circuit/meter';
 import { buildPlan, expectedProbesLowerBound, huffmanLowerBound, optimalExpected, pointByPointWalk } from '../../src/lib/circuit/plan';
 import { separationLowerBound } from '../../src/lib/circuit/plan-bounds';
 import { Base, emptyFallbacks, faultedCircuit, predictReadings, type Meter } from '../../src/lib/circuit/predict';
 import { probeNode } from '../../src/lib/circuit/meters';
-import { candidateProbes, feedWalkOrder, tableReading } from '../../src/lib/circuit/probes';
+import { candidateProbes, feedWalkOrder } from '../../src/lib/circuit/probes';
 import type { PredictionTable } from '../../src/lib/circuit/outcomes';
 import { solveCircuit } from '../../src/lib/circuit/solve';
 import { marksSeen } from '../../src/lib/circuit/testing/worlds';
@@ -121,7 +121,7 @@ export async function timing(): Promise<void> {
 		const table: PredictionTable = {
 			suspects: hyps.map((h) => ({ id: h.id, prior: h.prior })),
 			probes: specs.map((s) => ({ id: s.id, cost: s.cost, tolerance: s.tolerance })),
-			readings: specs.map((s, i) => Array.from(rows[i], (x) => Math.round(tableReading(s, x, ENTRY_DMM) * 1e6) / 1e6))
+			readings: specs.map((s, i) => Array.from(rows[i], (x) => Math.round(tableReading(s.kind, x, ENTRY_DMM) * 1e6) / 1e6))
 		};
 		t = now();
 		const cover = minimalProbeSet(table, { exactLimit: 0 });

@@ -54,7 +54,7 @@ import { buildCircuit, type Circuit } from '../../src/lib/circuit/circuit';
 import { demoHarness } from '../../src/lib/circuit/demo';
 import { diagnose, fuseCurrents, probeReadings, settleFuses, withReadings, type DiagnoseResult } from '../../src/lib/circuit/diagnose';
 import { generateHypotheses, type Change, type Hypothesis, type Region } from '../../src/lib/circuit/faults';
-import { ENTRY_DMM } from '../../src/lib/circuit/meter-profiles';
+import { ENTRY_DMM } from '../../src/lib/circuit/meter';
 import { probeNode } from '../../src/lib/circuit/meters';
 import { nodeOfTerminal } from '../../src/lib/circuit/nets';
 import { huffmanLowerBound } from '../../src/lib/circuit/plan';

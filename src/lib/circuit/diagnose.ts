@@ -14,11 +14,11 @@ import { minimalProbeSet } from './cover';
 import { bandAt, emfFromReading, SPREAD_MARGIN, type EmfRange, type Spread } from './bands';
 import { atSize, FAULT_KINDS, generateHypotheses, regionOf, SIZE_GRIDS, sizeRange, type Change, type FaultKind, type Hypothesis, type Region } from './faults';
 import { nodeOfTerminal } from './nets';
-import { ENTRY_DMM, type MeterProfile } from './meter-profiles';
+import { ENTRY_DMM, setupScenario, tableReading, type MeterProfile, type ProbeKind, type SetupId } from './meter';
 import type { PredictionTable } from './outcomes';
 import { buildPlan, checklist, replan, type ReadingTaken } from './plan';
 import { Base, emptyFallbacks, evaluateHypothesis, faultedCircuit, predictReadings, type FallbackCount, type Meter } from './predict';
-import { candidateProbes, CAUTIONS, setupScenario, tableReading, type ProbeKind, type ProbeSpec, type SetupId } from './probes';
+import { candidateProbes, CAUTIONS, type ProbeSpec } from './probes';
 import type { Location } from './parts';
 import type { Scenario } from './scenario';
 import type { HarnessDocument } from './schema';
@@ -216,8 +216,8 @@ export function probeReadings(
 		const none = [{ changes: [] as Change[] }];
 		const rows = predictReadings(b, [...cands, ...none], idx.map((i) => specs[i].meter), fallbacks);
 		idx.forEach((pi, r) => {
-			readings[pi] = cands.map((_, h) => tableReading(specs[pi], rows[r][h], profile));
-			healthy[pi] = tableReading(specs[pi], rows[r][cands.length], profile);
+			readings[pi] = cands.map((_, h) => tableReading(specs[pi].kind, rows[r][h], profile));
+			healthy[pi] = tableReading(specs[pi].kind, rows[r][cands.length], profile);
 		});
 	}
 	return { readings, healthy };

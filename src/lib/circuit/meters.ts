@@ -13,6 +13,7 @@
 import { CHASSIS } from './nets';
 import { addCurrentSource, addElement, buildCircuit, type Circuit } from './circuit';
 import { lampResistance } from './parts';
+import { ENTRY_DMM, setupScenario } from './meter';
 import type { Scenario } from './scenario';
 import type { HarnessDocument, TerminalRef } from './schema';
 import { solveCircuit, type Solution } from './solve';
@@ -20,10 +21,6 @@ import { solveCircuit, type Solution } from './solve';
 /** Where a probe goes: a part's terminal, a wire's end (behind its joint), the chassis, or the battery's earthed post. */
 export type ProbePoint = TerminalRef | { wire: string; end: 'from' | 'to' } | 'chassis' | 'earth';
 
-export const DMM_INPUT_OHMS = 10e6;
-export const OHMS_TEST_CURRENT = 1e-3;
-/** Top of the ohms range (Ω), above which the meter shows OL. Invented default of a 40 MΩ range. */
-export const OHMS_OVER_LIMIT = 40e6;
 
 /** The node a probe point touches. */
 export function probeNode(c: Circuit, p: ProbePoint): number {
@@ -91,7 +88,7 @@ export function measureVolts(
 	doc: HarnessDocument,
 	scenario: Scenario,
 	point: ProbePoint,
-	{ black = 'earth', inputOhms = DMM_INPUT_OHMS }: { black?: ProbePoint; inputOhms?: number } = {}
+	{ black = 'earth', inputOhms = ENTRY_DMM.inputOhms }: { black?: ProbePoint; inputOhms?: number } = {}
 ): VoltsReading {
 	const c = buildCircuit(doc, scenario);
 	const a = probeNode(c, point);
@@ -118,15 +115,9 @@ export function measureOhms(
 	scenario: Scenario,
 	a: ProbePoint,
 	b: ProbePoint = 'chassis',
-	{ testCurrent = OHMS_TEST_CURRENT, maxOhms = OHMS_OVER_LIMIT }: { testCurrent?: number; maxOhms?: number } = {}
+	{ testCurrent = ENTRY_DMM.ohms.testCurrent, maxOhms = ENTRY_DMM.ohms.overLimit }: { testCurrent?: number; maxOhms?: number } = {}
 ): OhmsReading {
-	const batteries = doc.parts.filter((p) => p.kind === 'battery').map((p) => p.id);
-	const unpowered: Scenario = {
-		...scenario,
-		engineRunning: false,
-		disconnected: [...(scenario.disconnected ?? []), ...batteries]
-	};
-	const c = buildCircuit(doc, unpowered);
+	const c = buildCircuit(doc, setupScenario(doc, scenario, 'power-off'));
 	const na = probeNode(c, a);
 	const nb = probeNode(c, b);
 	addCurrentSource(c, na, nb, testCurrent, 'ohmmeter');
@@ -151,7 +142,7 @@ export function testLamp(
 	doc: HarnessDocument,
 	scenario: Scenario,
 	point: ProbePoint,
-	{ watts = 5, volts, to = 'earth' }: { watts?: number; volts?: number; to?: ProbePoint } = {}
+	{ watts = ENTRY_DMM.lamp.watts, volts, to = 'earth' }: { watts?: number; volts?: number; to?: ProbePoint } = {}
 ): LampReading {
 	const rated = volts ?? doc.vehicle.systemVoltage;
 	const ohms = lampResistance(rated, watts);

@@ -12,9 +12,9 @@
 import type { Circuit } from './circuit';
 import type { Region } from './faults';
 import { probeNode, PULSING_SHOWN, pulsingNodes, type ProbePoint } from './meters';
-import type { MeterProfile } from './meter-profiles';
+import { meterFor, PROBE_KINDS, type MeterProfile, type ProbeKind, type SetupId } from './meter';
 import { nodeOfTerminal } from './nets';
-import { lampResistance, type Location } from './parts';
+import type { Location } from './parts';
 import type { Meter } from './predict';
 import type { Scenario } from './scenario';
 import type { HarnessDocument, Part } from './schema';
@@ -22,9 +22,6 @@ import type { Solution } from './solve';
 import type { Tolerance } from './outcomes';
 import { prepareTrace, type TracePoint } from './trace';
 import { wireNames } from './wire-names';
-
-export const PROBE_KINDS = ['volts', 'drop', 'ohms', 'lamp'] as const;
-export type ProbeKind = (typeof PROBE_KINDS)[number];
 
 /** Reach cost per location (invented defaults, ordered by how awkward the place is to get at). */
 export const DEFAULT_REACH: Record<Location, number> = {
@@ -40,8 +37,6 @@ export const DEFAULT_REACH: Record<Location, number> = {
 
 /** Extra effort (same unit): battery off for ohms, a part taken out, two leads apart for a drop. Invented. */
 export const SETUP_COST = { powerOff: 1, partOut: 0.5, drop: 0.5 } as const;
-
-export type SetupId = 'as-given' | 'power-off' | `part-out:${string}`;
 
 export interface ProbePlace {
 	/** The red lead. */
@@ -66,7 +61,8 @@ export interface ProbeSpec {
 	label: string;
 	setting: string;
 	conditions: string[];
-	cautions: string[];
+	/** Cautions by id (CAUTIONS holds their short words; the checklist prints the full ones). */
+	cautions: CautionId[];
 	cost: number;
 	unit: string;
 	tolerance: Tolerance;
@@ -92,6 +88,7 @@ export const CAUTIONS = {
 	ohms: 'Ohms only with the circuit unpowered: the battery disconnected.',
 	general: 'Loomwright assists diagnosis; follow the vehicle manual and get a qualified technician where unsure.'
 } as const;
+export type CautionId = keyof typeof CAUTIONS;
 
 /** A short statement of the scenario a powered probe is taken in. */
 export function describeScenario(doc: HarnessDocument, scenario: Scenario): string[] {
@@ -136,11 +133,11 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 	const depth = (node: number) => -Math.abs(solution.at(node));
 	const out: ProbeSpec[] = [];
 	const cost = (p: Part) => reach[p.location] ?? 2;
-	const cautionsAt = (p: Part, powered: boolean): string[] => {
-		const list: string[] = [];
-		if (p.kind === 'battery') list.push(CAUTIONS.battery);
-		if (p.location === 'fuel-tank') list.push(CAUTIONS.fuel);
-		if (powered && hasCoil) list.push(CAUTIONS.coil);
+	const cautionsAt = (p: Part, powered: boolean): CautionId[] => {
+		const list: CautionId[] = [];
+		if (p.kind === 'battery') list.push('battery');
+		if (p.location === 'fuel-tank') list.push('fuel');
+		if (powered && hasCoil) list.push('coil');
 		return list;
 	};
 	const place = (p: Part, terminal: string, to: ProbePlace['to'], extra: Partial<ProbePlace> = {}): ProbePlace => ({
@@ -158,7 +155,7 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 		const share = Math.abs(a - (b ?? 0));
 		return { ...profile.volts, ...(share > PULSING_SHOWN ? { band: Math.round(profile.pulsingBand * share * 1000) / 1000 } : {}) };
 	};
-	const lampOhms = lampResistance(doc.vehicle.systemVoltage, profile.lamp.watts);
+	const volts = doc.vehicle.systemVoltage;
 	const lampTol: Tolerance = { abs: profile.lamp.abs, rel: profile.lamp.rel };
 	const name = (p: Part) => (p.label ? `${p.key} (${p.label})` : p.key);
 	const names = wireNames(doc);
@@ -186,7 +183,7 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 				id: `volts:${p.id}:${t}`,
 				kind: 'volts',
 				setup: 'as-given',
-				meter: { kind: 'volts', a: point, b: 'earth', inputOhms: profile.inputOhms },
+				meter: meterFor('volts', point, 'earth', profile, volts),
 				place: place(p, t, 'earth'),
 				label: `Volts at ${at} to earth`,
 				setting: 'DC volts, 20 V range',
@@ -199,12 +196,12 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 			});
 		}
 		if (tools.has('lamp')) {
-			const extra = p.kind === 'gauge' || p.kind === 'sender' ? [CAUTIONS.gauge] : [];
+			const extra: CautionId[] = p.kind === 'gauge' || p.kind === 'sender' ? ['gauge'] : [];
 			out.push({
 				id: `lamp:${p.id}:${t}`,
 				kind: 'lamp',
 				setup: 'as-given',
-				meter: { kind: 'lamp', a: point, b: 'earth', ohms: lampOhms, watts: profile.lamp.watts },
+				meter: meterFor('lamp', point, 'earth', profile, volts),
 				place: place(p, t, 'earth'),
 				label: `Test lamp (${profile.lamp.watts} W) from ${at} to earth`,
 				setting: `Test lamp ${profile.lamp.watts} W: judge its brightness (100 % = full)`,
@@ -230,7 +227,7 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 				id: `drop:${w.id}`,
 				kind: 'drop',
 				setup: 'as-given',
-				meter: { kind: 'volts', a: w.from, b: w.to, inputOhms: profile.inputOhms },
+				meter: meterFor('drop', w.from, w.to, profile, volts),
 				place: place(a, w.from.terminal, { part: b.id, key: b.key, terminal: w.to.terminal }),
 				label: `Volt drop along wire ${w.code} from ${name(a)}.${w.from.terminal} to ${name(b)}.${w.to.terminal}`,
 				setting: 'DC volts, 20 V range (a long lead between the ends)',
@@ -249,7 +246,7 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 					id: `joint:${w.id}:${end}`,
 					kind: 'drop',
 					setup: 'as-given',
-					meter: { kind: 'volts', a: ref, b: { wire: w.id, end }, inputOhms: profile.inputOhms },
+					meter: meterFor('drop', ref, { wire: w.id, end }, profile, volts),
 					place: place(p, ref.terminal, { part: p.id, key: p.key, terminal: ref.terminal, wire: w.id, end }),
 					label: `Volt drop across the joint of wire ${w.code} at ${name(p)}.${ref.terminal}${names.whichOne(w, end)} (terminal to wire just behind it)`,
 					setting: 'DC volts, 20 V range; back-probe the wire behind the crimp',
@@ -281,12 +278,12 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 				id: `ohms:${p.id}:${ta}:${tb ?? 'chassis'}`,
 				kind: 'ohms',
 				setup: 'power-off',
-				meter: { kind: 'ohms', a, b, testCurrent: profile.ohms.testCurrent },
+				meter: meterFor('ohms', a, b, profile, volts),
 				place: place(p, ta, tb ? { part: p.id, key: p.key, terminal: tb } : 'chassis'),
 				label: tb ? `Ohms across ${name(p)} from ${ta} to ${tb}` : `Ohms from ${name(p)} ${ta} to a clean body point`,
 				setting: 'Ohms, 200 Ω range (a higher range if it shows over-range)',
 				conditions: ['Battery disconnected (earth lead off)', 'Ignition off', 'Leads touched together first: subtract their resistance'],
-				cautions: [CAUTIONS.ohms, CAUTIONS.battery, ...(p.location === 'fuel-tank' ? [CAUTIONS.fuel] : [])],
+				cautions: ['ohms', 'battery', ...(p.location === 'fuel-tank' ? (['fuel'] as const) : [])],
 				cost: cost(p) + SETUP_COST.powerOff,
 				unit: 'Ω',
 				tolerance: { abs: profile.ohms.abs, rel: profile.ohms.rel },
@@ -310,7 +307,7 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 				id: `volts-out:${p.id}:${t}`,
 				kind: 'volts',
 				setup,
-				meter: { kind: 'volts', a: point, b: 'earth', inputOhms: profile.inputOhms },
+				meter: meterFor('volts', point, 'earth', profile, volts),
 				place: place(p, t, 'earth'),
 				label: `Volts at the ${t} contact of ${name(p)} with the ${what} out`,
 				setting: 'DC volts, 20 V range',
@@ -326,7 +323,7 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 				id: `lamp-out:${p.id}:${t}`,
 				kind: 'lamp',
 				setup,
-				meter: { kind: 'lamp', a: point, b: 'earth', ohms: lampOhms, watts: profile.lamp.watts },
+				meter: meterFor('lamp', point, 'earth', profile, volts),
 				place: place(p, t, 'earth'),
 				label: `Test lamp (${profile.lamp.watts} W) at the ${t} contact of ${name(p)} with the ${what} out`,
 				setting: `Test lamp ${profile.lamp.watts} W: judge its brightness (100 % = full)`,
@@ -339,24 +336,6 @@ export function candidateProbes(doc: HarnessDocument, scenario: Scenario, c: Cir
 			});
 	}
 	return out;
-}
-
-/** A meter's raw reading as the probe's table value: volts; brightness in %; ohms capped at the range top (over-range). */
-export function tableReading(spec: ProbeSpec, raw: number, profile: MeterProfile): number {
-	if (spec.kind === 'lamp') return raw * 100;
-	if (spec.kind === 'ohms') return !Number.isFinite(raw) || raw > profile.ohms.overLimit ? profile.ohms.overLimit : raw;
-	return raw;
-}
-
-/** The setup's scenario: the scenario itself, the battery off, or a part out. */
-export function setupScenario(doc: HarnessDocument, scenario: Scenario, setup: SetupId): Scenario {
-	if (setup === 'as-given') return scenario;
-	if (setup === 'power-off') {
-		const batteries = doc.parts.filter((p) => p.kind === 'battery').map((p) => p.id);
-		return { ...scenario, engineRunning: false, disconnected: [...(scenario.disconnected ?? []), ...batteries] };
-	}
-	const part = setup.slice('part-out:'.length);
-	return { ...scenario, disconnected: [...(scenario.disconnected ?? []), part] };
 }
 
 /**

@@ -6,7 +6,7 @@
 import { buildCircuit, type Circuit } from './circuit';
 import { DiagnoseError, probeReadings, settleFuses } from './diagnose';
 import { atSize, generateHypotheses, sizeRange, type Change, type Region } from './faults';
-import { ENTRY_DMM, type MeterProfile } from './meter-profiles';
+import { ENTRY_DMM, type MeterProfile } from './meter';
 import { nodeOfTerminal } from './nets';
 import { Base } from './predict';
 import { candidateProbes } from './probes';

@@ -8,9 +8,9 @@
  * air and ignites from a spark; airbag igniters can be fired by a meter's own current. Each text
  * ends by pointing back to the manual, because Loomwright assists and does not replace it.
  *
- * The probe planner (src/lib/circuit/probes.ts) attaches its own short cautions to each probe;
- * `cautionOf` maps those to the fuller texts here, so one caution is printed once, numbered, and
- * each step refers to it by number.
+ * The probe planner (src/lib/circuit/probes.ts) attaches caution ids to each probe (its CAUTIONS
+ * hold the short words a probe card shows); the fuller texts here go by the same ids, so one
+ * caution is printed once, numbered, and each step refers to it by number.
  */
 import { CAUTIONS as PROBE_CAUTIONS } from '$lib/circuit/probes';
 
@@ -74,15 +74,6 @@ export const CAUTION_TEXTS: Record<CautionId, CautionText> = {
 			'Where a step does not match your vehicle, or you are unsure it is safe, stop and check the manual or ask someone qualified.'
 	}
 };
-
-/** The planner's per-probe caution text → the caution here that covers it (null: print it as it is). */
-export function cautionOf(probeCaution: string): CautionId | null {
-	for (const [key, text] of Object.entries(PROBE_CAUTIONS)) {
-		if (text !== probeCaution) continue;
-		if (key === 'battery' || key === 'coil' || key === 'ohms' || key === 'fuel' || key === 'gauge' || key === 'general') return key;
-	}
-	return null;
-}
 
 /**
  * The earliest model year given the airbag caution. Driver airbags spread through the late

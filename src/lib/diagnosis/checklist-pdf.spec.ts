@@ -2,7 +2,7 @@
 import { PDFDocument, StandardFonts } from 'pdf-lib';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { demoHarness } from '$lib/circuit/demo';
-import { ENTRY_DMM } from '$lib/circuit/meter-profiles';
+import { ENTRY_DMM } from '$lib/circuit/meter';
 import { defaultScenario } from '$lib/circuit/scenario';
 import type { PartMark } from '$lib/circuit/symptoms';
 import { checklistModel, type ChecklistModel } from './checklist';

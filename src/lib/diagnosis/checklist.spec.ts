@@ -4,12 +4,12 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { demoHarness } from '$lib/circuit/demo';
 import { groupAction } from '$lib/circuit/groups';
-import { ENTRY_DMM } from '$lib/circuit/meter-profiles';
+import { ENTRY_DMM } from '$lib/circuit/meter';
 import { TRADE_LETTERS } from '$lib/circuit/palettes';
 import { defaultScenario } from '$lib/circuit/scenario';
 import type { PartMark } from '$lib/circuit/symptoms';
 import { CAUTIONS as PROBE_CAUTIONS } from '$lib/circuit/probes';
-import { CAUTION_TEXTS, cautionOf, mayHaveAirbags, vehicleYear } from './cautions';
+import { CAUTION_TEXTS, mayHaveAirbags, vehicleYear } from './cautions';
 import { checklistModel, formatOhms, formatReading, slug, wireColours, type ChecklistInput, type ChecklistModel } from './checklist';
 import { regionSvg, subDocument } from './region-svg';
 import { basePlan, planDiagnosis, type ReadingJson } from './session';
@@ -266,16 +266,16 @@ describe('cautions', () => {
 		for (const [m, inp] of [[gaugesModel, gauges], [dead, deadInput]] as const) {
 			const probes = new Map(inp.result.probes.map((p) => [p.id, p]));
 			for (const s of m.steps) {
-				for (const t of probes.get(s.probe)!.cautions) {
-					const id = cautionOf(t);
+				for (const id of probes.get(s.probe)!.cautions) {
 					if (id === 'general') continue;
-					const entry = m.cautions.find((c) => (id ? c.id === id : c.text === t));
-					expect(entry, t).toBeTruthy();
+					const entry = m.cautions.find((c) => c.id === id);
+					expect(entry, id).toBeTruthy();
 					expect(s.cautions).toContain(entry!.number);
 				}
 			}
 		}
-		expect(cautionOf(PROBE_CAUTIONS.gauge)).toBe('gauge');
+		// Every caution id the planner can give has a full text to print.
+		for (const id of Object.keys(PROBE_CAUTIONS)) expect(CAUTION_TEXTS, id).toHaveProperty(id);
 		expect(CAUTION_TEXTS.gauge.text).toBe(PROBE_CAUTIONS.gauge);
 	});
 

@@ -11,13 +11,13 @@
  */
 import { parseCode, resolvePalette, type Palette } from '$lib/circuit/colours';
 import type { DiagnoseResult } from '$lib/circuit/diagnose';
-import type { MeterProfile } from '$lib/circuit/meter-profiles';
+import type { MeterProfile } from '$lib/circuit/meter';
 import { formatRange } from '$lib/circuit/outcomes';
 import type { ChecklistStep } from '$lib/circuit/plan';
 import type { HarnessDocument, Part, Wire } from '$lib/circuit/schema';
 import type { Mark } from '$lib/circuit/symptoms';
 import { wireNames, type WireNames } from '$lib/circuit/wire-names';
-import { CAUTION_TEXTS, cautionOf, mayHaveAirbags, requiredCautions, type CautionId } from './cautions';
+import { CAUTION_TEXTS, mayHaveAirbags, requiredCautions, type CautionId } from './cautions';
 import { readingsForPlan, type DiagnosisJson, type ReadingJson } from './session';
 import { endingText, formatBand, jobFor } from './view';
 
@@ -54,7 +54,7 @@ export interface WireColour {
 }
 
 export interface CautionBlockEntry {
-	id: CautionId | 'other';
+	id: CautionId;
 	/** Printed number, from 1; steps refer to it. */
 	number: number;
 	title: string;
@@ -290,11 +290,10 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 		fuelTank: stepProbes.some((p) => [p.place.part, typeof p.place.to === 'object' ? p.place.to.part : null].some((id) => id && parts.get(id)?.location === 'fuel-tank')),
 		airbags: mayHaveAirbags(input.vehicle.year, doc.parts.map((p) => p.label))
 	};
-	const ids: (CautionId | string)[] = requiredCautions(needs);
+	const ids: CautionId[] = requiredCautions(needs);
 	const stepCautionIds = stepProbes.map((p) => {
-		const own: (CautionId | string)[] = [];
-		for (const text of p.cautions) {
-			const id = cautionOf(text) ?? text;
+		const own: CautionId[] = [];
+		for (const id of p.cautions) {
 			if (id === 'general') continue;
 			if (!own.includes(id)) own.push(id);
 			if (!ids.includes(id)) ids.push(id);
@@ -307,9 +306,7 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 		return own;
 	});
 	ids.push('general');
-	const cautions: CautionBlockEntry[] = ids.map((id, i) =>
-		id in CAUTION_TEXTS ? { ...CAUTION_TEXTS[id as CautionId], number: i + 1 } : { id: 'other', number: i + 1, title: 'Caution', text: id }
-	);
+	const cautions: CautionBlockEntry[] = ids.map((id, i) => ({ ...CAUTION_TEXTS[id], number: i + 1 }));
 	const cautionNumber = new Map(ids.map((id, i) => [id, i + 1]));
 
 	const used = readingsForPlan(input.readings);

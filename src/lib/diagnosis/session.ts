@@ -2,7 +2,7 @@
 // and the readings taken so far (the latest of each probe counts; struck ones do not). Runs the
 // same in the server (API, checklist, PDF) and in the browser (the diagnosis page, offline too).
 import { diagnose, explainPairs, withReadings, type DiagnoseResult } from '../circuit/diagnose';
-import { ENTRY_DMM, METER_PROFILES, MeterProfileSchema, type MeterProfile } from '../circuit/meter-profiles';
+import { ENTRY_DMM, METER_PROFILES, MeterProfileSchema, type MeterProfile } from '../circuit/meter';
 import type { Scenario } from '../circuit/scenario';
 import type { HarnessDocument } from '../circuit/schema';
 import type { PartMark } from '../circuit/symptoms';

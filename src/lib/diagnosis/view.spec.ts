@@ -2,7 +2,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { demoHarness } from '$lib/circuit/demo';
 import { groupAction } from '$lib/circuit/groups';
-import { ENTRY_DMM } from '$lib/circuit/meter-profiles';
+import { ENTRY_DMM } from '$lib/circuit/meter';
 import { defaultScenario } from '$lib/circuit/scenario';
 import { OPEN_HUNT } from './demo';
 import { basePlan, planDiagnosis, type DiagnosisPlan, type ReadingJson } from './session';

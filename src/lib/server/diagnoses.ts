@@ -7,7 +7,7 @@ import { and, asc, desc, eq, sql } from 'drizzle-orm';
 import type { User as SessionUser } from 'lucia';
 import { z } from 'zod';
 import { DiagnoseError } from '../circuit/diagnose';
-import { METER_PROFILES, MeterProfileSchema } from '../circuit/meter-profiles';
+import { METER_PROFILES, MeterProfileSchema } from '../circuit/meter';
 import type { HarnessDocument } from '../circuit/schema';
 import { MARKS } from '../circuit/symptoms';
 import { checkUncertainty, UncertaintySchema, type Uncertainty } from '../circuit/uncertainty';

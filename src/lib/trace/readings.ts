@@ -1,13 +1,11 @@
 // What a DMM and a test lamp would show at a terminal in a scenario, in words, computed in the
 // browser by the circuit core (src/lib/circuit/meters.ts).
 import { measureVolts, testLamp, type LampReading, type VoltsReading } from '$lib/circuit/meters';
+import { ENTRY_DMM } from '$lib/circuit/meter';
 import { earthedTerminal } from '$lib/circuit/parts';
 import type { Scenario } from '$lib/circuit/scenario';
 import type { HarnessDocument, Part, TerminalRef } from '$lib/circuit/schema';
 import { senderResistance } from '$lib/circuit/parts';
-
-/** Test lamp bulb the readings assume (a common 5 W probe-lamp bulb; common practice). */
-export const TEST_LAMP_WATTS = 5;
 
 export interface TerminalReading {
 	ref: TerminalRef;
@@ -34,10 +32,10 @@ export function brightnessWords(brightness: number): string {
 	return word === 'dark' ? 'dark (no glow)' : `${word} (${pct} % of full brightness)`;
 }
 
-/** The DMM (10 MΩ, black lead on the battery's earthed post) and a 5 W test lamp at one terminal. */
+/** The entry-level DMM (black lead on the battery's earthed post) and its test lamp at one terminal. */
 export function terminalReading(doc: HarnessDocument, scenario: Scenario, ref: TerminalRef): TerminalReading {
 	const volts = measureVolts(doc, scenario, ref);
-	const lamp = testLamp(doc, scenario, ref, { watts: TEST_LAMP_WATTS });
+	const lamp = testLamp(doc, scenario, ref, { watts: ENTRY_DMM.lamp.watts });
 	const post = earthedTerminal(doc.vehicle.earth);
 	return {
 		ref,

@@ -24,7 +24,7 @@ import { atSize, sizeRange, type Change, type Hypothesis } from '../faults';
 import { faultedCircuit } from '../predict';
 import { solveCircuit, type Solution } from '../solve';
 import { markOf, observedElement, quantity, seenOn, type PartMark } from '../symptoms';
-import type { MeterProfile } from '../meter-profiles';
+import type { MeterProfile } from '../meter';
 import { chargingVoltage } from '../parts';
 import type { Scenario } from '../scenario';
 import type { HarnessDocument } from '../schema';

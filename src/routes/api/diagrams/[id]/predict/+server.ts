@@ -4,9 +4,8 @@ import { requireDiagram } from '$lib/server/access';
 import { documentToPlan, scenarioToPlan } from '$lib/server/documents';
 import { BadRequest, endpoint, readBody } from '$lib/server/http';
 import { buildCircuit } from '$lib/circuit/circuit';
-import { ENTRY_DMM } from '$lib/circuit/meter-profiles';
-import { lampResistance } from '$lib/circuit/parts';
-import { Base, predictReadings, type Meter } from '$lib/circuit/predict';
+import { ENTRY_DMM, meterFor, setupScenario, shownReading, unitOf } from '$lib/circuit/meter';
+import { Base, predictReadings } from '$lib/circuit/predict';
 import type { HarnessDocument } from '$lib/circuit/schema';
 import { DiagnoseError } from '$lib/circuit/diagnose';
 import type { Change } from '$lib/circuit/faults';
@@ -60,26 +59,16 @@ export const POST: RequestHandler = endpoint(async ({ locals, params, request })
 	}
 	issues.push(...input.probes.flatMap((p, i) => [...checkPoint(doc, p.at, `probes[${i}].at`), ...checkPoint(doc, p.to, `probes[${i}].to`)]));
 	if (issues.length) throw new BadRequest('Some probes name points that are not in the diagram.', issues);
-	const meterOf = (p: z.output<typeof Probe>): Meter =>
-		p.kind === 'lamp'
-			? { kind: 'lamp', a: p.at, b: p.to, ohms: lampResistance(doc.vehicle.systemVoltage, ENTRY_DMM.lamp.watts), watts: ENTRY_DMM.lamp.watts }
-			: p.kind === 'ohms'
-				? { kind: 'ohms', a: p.at, b: p.to, testCurrent: ENTRY_DMM.ohms.testCurrent }
-				: { kind: 'volts', a: p.at, b: p.to, inputOhms: ENTRY_DMM.inputOhms };
 	const powered = input.probes.map((p, i) => [p, i] as const).filter(([p]) => p.kind !== 'ohms');
 	const ohms = input.probes.map((p, i) => [p, i] as const).filter(([p]) => p.kind === 'ohms');
-	const out: { id: string; reading: number | 'OL'; unit: string }[] = input.probes.map((p) => ({ id: p.id, reading: 0, unit: p.kind === 'lamp' ? '%' : p.kind === 'ohms' ? 'Ω' : 'V' }));
+	const out: { id: string; reading: number | 'OL'; unit: string }[] = input.probes.map((p) => ({ id: p.id, reading: 0, unit: unitOf(p.kind) }));
 	const run = (setup: Scenario, list: typeof powered) => {
 		if (!list.length) return;
-		const rows = predictReadings(new Base(buildCircuit(doc, setup)), [{ changes }], list.map(([p]) => meterOf(p)));
-		list.forEach(([p, i], r) => {
-			const v = rows[r][0];
-			out[i].reading = p.kind === 'lamp' ? v * 100 : p.kind === 'ohms' && !(v <= ENTRY_DMM.ohms.overLimit) ? 'OL' : v;
-		});
+		const rows = predictReadings(new Base(buildCircuit(doc, setup)), [{ changes }], list.map(([p]) => meterFor(p.kind, p.at, p.to, ENTRY_DMM, doc.vehicle.systemVoltage)));
+		list.forEach(([p, i], r) => (out[i].reading = shownReading(p.kind, rows[r][0], ENTRY_DMM)));
 	};
 	run(scenario, powered);
-	const batteries = doc.parts.filter((p) => p.kind === 'battery').map((p) => p.id);
-	run({ ...scenario, engineRunning: false, disconnected: [...scenario.disconnected, ...batteries] }, ohms);
+	run(setupScenario(doc, scenario, 'power-off'), ohms);
 	let planned: { id: string; reading: number; unit: string }[] = [];
 	if (input.planProbes.length) {
 		try {

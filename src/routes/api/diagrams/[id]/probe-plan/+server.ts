@@ -5,8 +5,7 @@ import { documentToPlan, scenarioToPlan } from '$lib/server/documents';
 import { BadRequest, endpoint, readBody } from '$lib/server/http';
 import { diagnose, DiagnoseError, FAULT_KINDS } from '$lib/circuit/diagnose';
 import { MARKS } from '$lib/circuit/symptoms';
-import { METER_PROFILES, MeterProfileSchema } from '$lib/circuit/meter-profiles';
-import { PROBE_KINDS } from '$lib/circuit/probes';
+import { METER_PROFILES, MeterProfileSchema, PROBE_KINDS } from '$lib/circuit/meter';
 import { LOCATIONS } from '$lib/circuit/parts';
 import type { RequestHandler } from './$types';
 
