@@ -421,8 +421,10 @@ interface CaseRef {
 /** What a case gives, as plain data (sent back by a worker). */
 interface Row {
 	k: number;
+	draw: number;
 	setting: number;
 	kind: string;
+	fault: string;
 	nominal: Omit<Outcome, 'start'>;
 	robust: Omit<Outcome, 'start'>;
 	walk?: { probes: number; endedOnDrop: boolean };
@@ -437,7 +439,7 @@ function runCase(pool: Setting[], seed: number, ref: CaseRef): Row {
 	const { start: _n, ...n } = hunt(setting, h.site, nominal.marks, reader(nominal, setting.partOut, null));
 	const { start, ...b } = hunt(setting, h.site, robust.marks, readRobust);
 	void _n;
-	const row: Row = { k: ref.k, setting: ref.setting, kind: h.kind, nominal: n, robust: b };
+	const row: Row = { k: ref.k, draw: ref.draw, setting: ref.setting, kind: h.kind, fault: h.id, nominal: n, robust: b };
 	if (start) {
 		const abnormal = robust.marks.filter((m) => m.mark !== 'normal').map((m) => m.part);
 		row.walk = walk(setting, abnormal, start, readRobust);
@@ -637,6 +639,9 @@ export async function run(): Promise<void> {
 		console.log(`  ${name}: ${[...why].map(([k, v]) => `${k}: ${v}`).join('; ') || 'every hunt ran to its end'}; the engine said to charge the battery first in ${charged} cases`);
 		if (top.length) console.log(`    not correct, by fault kind: ${top.map(([k, v]) => `${k} ${v}`).join(', ')}`);
 	}
+	// Each robust case that went wrong, to look at one by one (its draw number and setting reproduce it).
+	for (const r of rows.filter((x) => x.robust.result !== 'correct'))
+		console.log(`    robust ${r.robust.result}${r.robust.why ? ` (${r.robust.why})` : ''}: draw ${r.draw}, ${pool[r.setting].name}, ${r.fault}`);
 
 	// Yardsticks on the robust run.
 	const walked = rows.filter((r) => r.walk);

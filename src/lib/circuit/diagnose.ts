@@ -22,7 +22,7 @@ import { candidateProbes, CAUTIONS, type ProbeSpec } from './probes';
 import type { Location } from './parts';
 import type { Scenario } from './scenario';
 import type { HarnessDocument } from './schema';
-import { explain, observedElement, quantity, seenOn, type Judged, type PartMark } from './symptoms';
+import { explain, markMiss, observedElement, quantity, seenOn, type Judged, type PartMark } from './symptoms';
 import { batteryRange, CHARGE_BELOW_PER_12, factorWorlds, uncertaintyOf, withBattery, type UncertaintyInput } from './uncertainty';
 import { planningView, type ReadingRange } from './outcomes';
 import { groupAction } from './groups';
@@ -361,7 +361,8 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 				const q = judged[mi] === 'lamp' ? lampPower(w, h, mi, amps) : amps;
 				return h0[used[mi]] > 1e-12 ? q / h0[used[mi]] : 1;
 			});
-			return slacks.map((slack) => explain({ kind: h.kind === 'double' ? 'joint:resistive' : h.kind }, marks, judged, ratios, slack, Math.min(slack, MARK_SLACK)));
+			const miss = marks.reduce((m, mk, mi) => m + markMiss(judged[mi], ratios[mi], mk.mark), 0);
+			return { miss, by: slacks.map((slack) => explain({ kind: h.kind === 'double' ? 'joint:resistive' : h.kind }, marks, judged, ratios, slack, Math.min(slack, MARK_SLACK))) };
 		});
 	};
 	// Explained in some world; fit as in the nominal one where it explains there, else the best
@@ -369,13 +370,16 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	// sender's travel moves a gauge's ratio by a third at most): the rest cannot get there.
 	const evaluate = (cands: Candidate[], worlds: readonly MarksWorld[]) => {
 		const nominal = judge(worlds[0], cands, [MARK_SLACK, 0.35]);
-		const out = cands.map((h, hi) => ({ h, explains: nominal[hi][0].explains, near: nominal[hi][1].explains, fit: nominal[hi][0].explains ? nominal[hi][0].fit : 0, predicted: nominal[hi][0].predicted }));
-		const near = cands.map((_, hi) => hi).filter((hi) => !nominal[hi][0].explains && nominal[hi][1].explains);
+		const out = cands.map((h, hi) => {
+			const [at, wide] = nominal[hi].by;
+			return { h, explains: at.explains, near: wide.explains, miss: nominal[hi].miss, fit: at.explains ? at.fit : 0, predicted: at.predicted };
+		});
+		const near = cands.map((_, hi) => hi).filter((hi) => !nominal[hi].by[0].explains && nominal[hi].by[1].explains);
 		if (near.length)
 			for (const w of worlds.slice(1)) {
 				const got = judge(w, near.map((hi) => cands[hi]), [MARK_SLACK]);
 				near.forEach((hi, k) => {
-					const x = got[k][0];
+					const x = got[k].by[0];
 					if (x.explains) {
 						out[hi].explains = true;
 						out[hi].fit = Math.max(out[hi].fit, x.fit);
@@ -386,18 +390,23 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	};
 	let evaluated = evaluate(variants, marksWorlds);
 	// Some marks fit only a narrow window of sizes (most parts dead and one still glowing): where
-	// a sample of a site nearly fits, the sizes between it and its neighbours are tried too.
+	// a sample of a site nearly fits, the sizes either side of its nearest sample are tried too,
+	// closing in on the window a round at a time.
 	for (let round = 0; round < 3; round++) {
 		const bySize = new Map<string, (typeof evaluated)[number][]>();
 		for (const e of evaluated) if (e.h.size !== undefined && e.h.origin) (bySize.get(e.h.site) ?? bySize.set(e.h.site, []).get(e.h.site)!).push(e);
 		const extra: Candidate[] = [];
 		for (const list of bySize.values()) {
-			if (list.some((e) => e.explains)) continue;
+			if (list.some((e) => e.explains) || !list.some((e) => e.near)) continue;
 			list.sort((a, b) => a.h.size! - b.h.size!);
+			const best = list.reduce((m, e, i) => (e.near && (m < 0 || e.miss < list[m].miss) ? i : m), -1);
 			for (let i = 0; i + 1 < list.length; i++) {
 				const [a, b] = [list[i], list[i + 1]];
-				if (!(a.near || b.near)) continue;
+				// Beside the nearest sample, or where the predicted marks change (a fuse blowing, a relay dropping out).
+				if (!(a.near || b.near) || !(i === best - 1 || i === best || a.predicted.some((m, k) => m !== b.predicted[k]))) continue;
 				const size = a.h.kind.startsWith('stabilizer') ? (a.h.size! + b.h.size!) / 2 : Math.sqrt(a.h.size! * b.h.size!);
+				const shown = (x: number) => Number(x.toPrecision(3));
+				if (shown(size) === shown(a.h.size!) || shown(size) === shown(b.h.size!)) continue;
 				const v: Candidate = { ...a.h, id: `${a.h.site}:${Number(size.toPrecision(3))}`, changes: atSize({ kind: a.h.kind as FaultKind, changes: a.h.origin! }, size), size, ...(a.h.ohms !== undefined ? { ohms: Number(size.toPrecision(3)) } : {}) };
 				extra.push(RAISES_CURRENT.test(v.kind) ? settleFuses(base, c, v, fuses) : v);
 			}
@@ -729,7 +738,7 @@ export const PAIR_POOL = 6;
 
 /**
  * Readings no single suspect explains: do two of the leading suspects at once explain every
- * reading taken? Solves the pairs of the PAIR_POOL likeliest remaining suspects on the probes
+ * reading taken? Solves the pairs of PAIR_POOL leading suspects (left or ruled out) on the probes
  * read (a bounded check, and said so); a pair whose readings all fall within the meter's
  * tolerance plus the model's 1 % becomes the unexplained readings' explanation.
  */
@@ -741,9 +750,14 @@ export function explainPairs(input: Pick<DiagnoseInput, 'doc' | 'scenario' | 'me
 	const base = new Base(c);
 	// One hypothesis per site, each suspect taken at the size that fits its marks best.
 	const bySite = new Map(generateHypotheses(c, { sweep: [1] }).map((h) => [h.site, h]));
-	const lead = result.readings.remaining
-		.slice(0, PAIR_POOL)
-		.map((x) => result.suspects.find((s) => s.id === x.suspect))
+	// The leading suspects left, then the likeliest ones the readings ruled out (a reading that
+	// two faults make together can rule out either alone), then the rest of those left.
+	const left = result.readings.remaining.map((x) => x.suspect);
+	const out = result.suspects.map((s) => s.id).filter((id) => !left.includes(id));
+	const half = Math.ceil(PAIR_POOL / 2);
+	const pool = [...new Set([...left.slice(0, half), ...out, ...left])].slice(0, PAIR_POOL);
+	const lead = pool
+		.map((id) => result.suspects.find((s) => s.id === id))
 		.filter((s): s is SuspectOut => !!s && s.kind !== 'double' && bySite.has(s.site))
 		.map((s) => {
 			const h = bySite.get(s.site)!;

@@ -1,6 +1,6 @@
 // How marks are judged against a hypothesis's predicted ratios (faulted / healthy quantity).
 import { describe, expect, it } from 'vitest';
-import { explain, markFits, MARK_THRESHOLDS, SIDE_ALIKE } from './symptoms';
+import { explain, markFits, markMiss, MARK_THRESHOLDS, SIDE_ALIKE } from './symptoms';
 
 describe('marks side by side', () => {
 	const marks = [
@@ -25,5 +25,21 @@ describe('marks side by side', () => {
 	it('a mark\u2019s band widens by the slack at each edge', () => {
 		expect(markFits('lamp', 0.72, 'reads-low')).toBe(false);
 		expect(markFits('lamp', 0.72, 'reads-low', 0.08)).toBe(true);
+	});
+});
+
+describe('how near a ratio comes to its mark', () => {
+	it('is 0 inside the mark’s band and the log distance to its nearest edge outside (thresholds: symptoms.ts)', () => {
+		const t = MARK_THRESHOLDS.gauge;
+		expect(markMiss('gauge', 0.5, 'reads-low')).toBe(0);
+		expect(markMiss('gauge', 1, 'reads-low')).toBeCloseTo(Math.log(1 / t.low), 12);
+		expect(markMiss('gauge', 0.05, 'reads-low')).toBeCloseTo(Math.log(t.dead / 0.05), 12);
+		expect(markMiss('gauge', 0, 'dead')).toBe(0);
+		expect(markMiss('gauge', 2, 'reads-high')).toBe(0);
+		// Erratic wants the part off normal: inside the normal band it is as far as the nearer edge.
+		expect(markMiss('gauge', 1, 'erratic')).toBeCloseTo(Math.min(Math.log(1 / t.low), Math.log(t.high)), 12);
+		expect(markMiss('gauge', 0.5, 'erratic')).toBe(0);
+		// Nearer is smaller: the refinement closes in on the sizes whose ratio is nearest the band.
+		expect(markMiss('lamp', 0.8, 'reads-low')).toBeLessThan(markMiss('lamp', 0.95, 'reads-low'));
 	});
 });

@@ -118,6 +118,19 @@ export function markFits(judged: Judged, ratio: number, mark: Exclude<Mark, 'err
 	return ratio >= t.low / k && ratio <= t.high * k;
 }
 
+/**
+ * How far a ratio lies outside its mark's band, on a log scale (0 inside; erratic: how far inside
+ * the normal band). Summed over the marks, it says which of a fault's sizes comes nearest to
+ * explaining them, so the sizes around that one are tried next.
+ */
+export function markMiss(judged: Judged, ratio: number, mark: Mark): number {
+	const t = MARK_THRESHOLDS[judged];
+	const r = Math.max(ratio, 1e-9);
+	if (mark === 'erratic') return r < t.low || r > t.high ? 0 : Math.min(Math.log(r / t.low), Math.log(t.high / r));
+	const [low, high] = mark === 'dead' ? [0, t.dead] : mark === 'reads-low' ? [t.dead, t.low] : mark === 'reads-high' ? [t.high, Infinity] : [t.low, t.high];
+	return r < low ? Math.log(low / r) : r > high ? Math.log(r / high) : 0;
+}
+
 /** Two parts judged alike whose quantities are within this fraction look the same side by side (invented). */
 export const SIDE_ALIKE = 0.02;
 
