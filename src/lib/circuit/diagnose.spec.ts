@@ -4,7 +4,9 @@ import { demoHarness, withOppositeEarth } from './demo';
 import { diagnose, FUSE_BLOWS, settleFuses } from './diagnose';
 import { buildCircuit } from './circuit';
 import { regionOf, type Change } from './faults';
-import { Base, evaluateHypothesis } from './predict';
+import { Base, evaluateHypothesis, fullReading } from './predict';
+import { generateHarness } from './testing/generate';
+import { marksSeen, restorerScenario } from './testing/worlds';
 import { acceptOf } from './outcomes';
 import { readingsIf } from './what-if';
 import { defaultScenario } from './scenario';
@@ -181,6 +183,52 @@ describe('two faults at once', () => {
 		const u = r.readings!.unexplained.find((x) => x.probe === 'volts:earth:stud')!;
 		expect(u.explanation.cause).toBe('two-faults');
 		expect([...u.explanation.pair!].sort()).toEqual(['earth-point:earth', 'joint:w2:to']);
+	});
+});
+
+describe('suspects by effect, away from the marked parts\u2019 wiring', () => {
+	it('a shorted ignition coil on the feed the stabilizer shares is a suspect for both gauges low, though not on their wiring', () => {
+		// A shorted coil primary draws several times its current through ignition terminal 15,
+		// which feeds the stabilizer too: the shared feed sags (Ohm's law, common practice).
+		const both = diagnose({ doc: demo, scenario, marks: [{ part: 'fuel-gauge', mark: 'reads-low' }, { part: 'temp-gauge', mark: 'reads-low' }] });
+		expect(regionOf(demo, scenario, ['fuel-gauge', 'temp-gauge']).parts.has('coil')).toBe(false);
+		expect(both.suspects.map((x) => x.id)).toContain('ignition-coil:shorted:coil');
+	});
+
+	// An invented harness from the generator (81 parts, seed 5105), as the robust benchmark uses it.
+	const gen = generateHarness(5105, { parts: 80 });
+	const gsc = restorerScenario(gen.doc, gen.scenario);
+	const gc = buildCircuit(gen.doc, gsc);
+	const gbase = new Base(gc);
+	const element = (ref: string) => gc.elements.findIndex((e) => (e.ref.kind === 'wire' ? `wire:${e.ref.wire}` : e.ref.kind === 'joint' ? `joint:${e.ref.wire}:${e.ref.end}` : '') === ref);
+
+	it('a broken wire that moves current onto another fuse blows it, and the suspect says so', () => {
+		// Solved in full (the solver agrees with ngspice): with wire 12 open, fuse 15 (10 A) carries
+		// more than 135 % of its rating (ISO 8820-3 opening current, recalled from memory).
+		const open: Change[] = [{ type: 'element', element: element('wire:w12'), ohms: null }];
+		const fuse = gc.elements.findIndex((e) => e.ref.kind === 'part' && e.ref.part === 'fu15' && e.ref.role === 'fuse');
+		expect(Math.abs(fullReading(gc, open, { kind: 'current', element: fuse }) as number)).toBeGreaterThan(FUSE_BLOWS * 10);
+		const truth = settleFuses(gbase, gc, { changes: open, label: 'open' });
+		expect(truth.label).toMatch(/fuse 15 blows/);
+		const r = diagnose({ doc: gen.doc, scenario: gsc, marks: marksSeen(gc, gbase.solution, truth.changes) });
+		const s = r.suspects.find((x) => x.id === 'wire:w12:open');
+		expect(s?.label).toMatch(/fuse 15 blows/);
+	});
+
+	it('a joint whose reading turns back once the circuit changes state keeps every size it explains inside its band', () => {
+		// Volts at lamp 71's earth rise with the joint (the divider of joint and lamp) until, between
+		// 14 and 20 Ω, the circuit changes state and the reading falls back: not monotonic.
+		const at = (size: number) => readingsIf({ doc: gen.doc, scenario: gsc, probes: ['volts:la71:earth'], fault: 'joint:w73:to', size })[0].reading;
+		expect(at(14)).toBeGreaterThan(at(10));
+		expect(at(20)).toBeLessThan(at(10) / 2);
+		const changes: Change[] = [{ type: 'element', element: element('joint:w73:to'), ohms: 5, series: true }];
+		const r = diagnose({ doc: gen.doc, scenario: gsc, marks: marksSeen(gc, gbase.solution, changes) });
+		const si = r.suspects.findIndex((x) => x.id === 'joint:w73:to');
+		const band = r.bands[r.probes.findIndex((p) => p.id === 'volts:la71:earth')][si]!;
+		for (const size of r.suspects[si].size ? [r.suspects[si].size!.low, 5, r.suspects[si].size!.high] : [5]) {
+			expect(at(size)).toBeGreaterThanOrEqual(band.low);
+			expect(at(size)).toBeLessThanOrEqual(band.high);
+		}
 	});
 });
 

@@ -223,8 +223,6 @@ export function probeReadings(
 	return { readings, healthy };
 }
 
-/** Fault kinds that can raise a current and so blow a fuse; added resistance and opens only lower the battery's load. */
-const RAISES_CURRENT = /short|stuck|stabilizer:high/;
 
 /**
  * Nodes joined to the battery's live post through wiring, switch and relay contacts and connector
@@ -310,6 +308,40 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	const region = regionOf(doc, scenario, abnormal.length ? abnormal : marks.map((m) => m.part));
 
 	const fuses = fuseCurrents(base, c);
+	const unfused = unfusedNodes(c);
+	// Off the marked parts' wiring, a fault is a suspect where it can move them at all (a sneak
+	// path, a relay falling to its other contact, a shared earth): each site's strongest form (open,
+	// off, a hard short, fuses settled) is tried once on the marks, and a site that moves every
+	// abnormal mark the marked way by SCREEN_MOVE joins the region, with all its sizes.
+	function widenedByEffect(): Region {
+		const wide: Region = { parts: new Set(region.parts), wires: new Set(region.wires), nodes: new Set(region.nodes) };
+		const abnormalAt = marks.map((m, i) => (m.mark === 'normal' ? -1 : i)).filter((i) => i >= 0);
+		if (!abnormalAt.length) return wide;
+		const known = new Set(generateHypotheses(c, { region, weights: input.weights, sweep: [] }).map((h) => h.site));
+		const strongest = generateHypotheses(c, { weights: input.weights, sweep: [] })
+			.filter((h) => h.kind !== 'none' && !known.has(h.site) && !h.changes.some((ch) => ch.type === 'to-chassis' && unfused.has(ch.node)))
+			.map((h) => settleFuses(base, c, { ...h }, fuses));
+		if (!strongest.length) return wide;
+		const rows = predictReadings(base, strongest, abnormalAt.map((i) => meters[i]), fallbacks);
+		strongest.forEach((h, hi) => {
+			const moves = abnormalAt.every((i, k) => {
+				const e = c.elements[observed[used[i]].element];
+				const h0 = healthy[used[i]];
+				if (!(h0 > 1e-12)) return false;
+				const amps = Math.abs(rows[k][hi]);
+				let g = base.g[observed[used[i]].element];
+				for (const ch of h.changes) if (ch.type === 'element' && ch.element === observed[used[i]].element) g = ch.ohms === null ? 0 : 1 / (ch.series ? 1 / e.gClosed + ch.ohms : ch.ohms);
+				const r = (judged[i] === 'lamp' ? (g > 0 ? (amps * amps) / g : 0) : amps) / h0;
+				const mark = marks[i].mark;
+				return mark === 'erratic' ? Math.abs(r - 1) > SCREEN_MOVE : mark === 'reads-high' ? r > 1 + SCREEN_MOVE : r < 1 - SCREEN_MOVE;
+			});
+			if (!moves) return;
+			if (h.place.part) wide.parts.add(h.place.part);
+			if (h.place.wire) wide.wires.add(h.place.wire);
+			if (h.place.node) wide.nodes.add(h.place.node);
+		});
+		return wide;
+	}
 	for (const f of fuses.values())
 		if (f.amps > f.rating) notes.push(`Fuse ${f.key} carries ${f.amps.toFixed(1)} A in the harness as drawn, more than its ${f.rating} A rating: check the rating and the loads on the drawing.`);
 	c.relays.forEach((r, k) => {
@@ -324,16 +356,18 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 	// Suspects are chosen by effect, not by adjacency: a chafed short anywhere draws its current
 	// through the battery and the feeds it shares with the marked parts, and can sag them all, so
 	// shorts are tried on every node of the harness; the marks keep only those that explain them.
-	const inRegion = generateHypotheses(c, { region, weights: input.weights, sweep: SIZE_GRIDS.resistive });
+	const inRegion = generateHypotheses(c, { region: widenedByEffect(), weights: input.weights, sweep: SIZE_GRIDS.resistive });
 	const seen = new Set(inRegion.map((h) => h.site));
-	const unfused = unfusedNodes(c);
 	const elsewhere = generateHypotheses(c, { weights: input.weights, sweep: [] }).filter((h) => h.kind === 'node:short' && !seen.has(h.site) && h.changes.some((ch) => ch.type === 'to-chassis' && unfused.has(ch.node)));
 	for (const h of [...inRegion, ...elsewhere]) {
 		const grid = h.kind === 'node:short' || h.kind === 'stabilizer:low' || h.kind === 'stabilizer:high' ? gridOf(h) : null;
 		const sized = grid ? grid.map((size) => ({ ...h, id: `${h.site}:${size}`, changes: atSize(h, size), size })) : [{ ...h, ...(h.ohms !== undefined ? { size: h.ohms } : {}) }];
 		for (const v of sized) {
 			const cand: Candidate = { id: v.id, label: v.label, kind: v.kind, prior: v.prior, changes: v.changes, place: [v.place], site: v.site, ohms: v.ohms, size: v.size, origin: h.changes };
-			variants.push(RAISES_CURRENT.test(v.kind) ? settleFuses(base, c, cand, fuses) : cand);
+			// Every kind, not only shorts: an open or a joint lowers the battery's load but can push
+			// more current through one fuse (a sneak path through another load, a relay falling to
+			// its other contact).
+			variants.push(settleFuses(base, c, cand, fuses));
 		}
 	}
 
@@ -408,7 +442,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 				const shown = (x: number) => Number(x.toPrecision(3));
 				if (shown(size) === shown(a.h.size!) || shown(size) === shown(b.h.size!)) continue;
 				const v: Candidate = { ...a.h, id: `${a.h.site}:${Number(size.toPrecision(3))}`, changes: atSize({ kind: a.h.kind as FaultKind, changes: a.h.origin! }, size), size, ...(a.h.ohms !== undefined ? { ohms: Number(size.toPrecision(3)) } : {}) };
-				extra.push(RAISES_CURRENT.test(v.kind) ? settleFuses(base, c, v, fuses) : v);
+				extra.push(settleFuses(base, c, v, fuses));
 			}
 		}
 		if (!extra.length) break;
@@ -458,10 +492,13 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		const first = ok[0];
 		const last = ok[ok.length - 1];
 		const rep = list[best].h;
-		// A reading moves monotonically with one element's resistance (faults.ts SIZE_GRIDS), so the
-		// span's two ends bound it.
-		const ends = [list[Math.max(0, first - 1)].h, list[Math.min(list.length - 1, last + 1)].h];
-		const span = ends[0] === ends[1] ? [ends[0]] : ends;
+		// Every sample from one step below the sizes that fit to one above, not only the two ends: a
+		// reading need not move monotonically with the size once a relay drops out or a lamp's
+		// current moves a stabilizer, so the band takes the extremes over all of them.
+		const span = list
+			.slice(Math.max(0, first - 1), last + 2)
+			.map((e) => e.h)
+			.filter((h) => h !== rep);
 		const size = rep.size !== undefined && list.length > 1 ? { low: list[first].h.size!, high: list[last].h.size! } : undefined;
 		const label = size ? `${rep.label.replace(/, about [\d.]+ Ω$/, '')}, ${sizeText(rep.kind, size.low, size.high)}` : rep.label;
 		chosenAll.push({ rep: { ...rep, id: size ? rep.site : rep.id, label }, fit: list[best].fit, span: size ? span : [], size });
@@ -732,6 +769,9 @@ function explanationOf(result: DiagnoseResult, battery: BatteryState | null, pro
 	}
 	return { cause: 'differs', text: DIFFERS_TEXT };
 }
+
+/** How far a fault off the marked parts' wiring must move every abnormal mark, at its strongest, to be a suspect (invented: a third of the smallest mark threshold, 15 %). */
+export const SCREEN_MOVE = 0.05;
 
 /** Most single suspects paired when looking for two faults behind readings no single one explains. */
 export const PAIR_POOL = 6;
