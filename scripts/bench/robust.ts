@@ -24,8 +24,9 @@
  * Readings: each probe the plan asks for is read on the true world with the fault (candidate
  * probes of the true document over the whole harness, diagnose.ts probeReadings, the same solver
  * that agrees with ngspice), then the meter's error is drawn uniformly within ±(rel·|x| + abs) of
- * the probe's tolerance (its pulsing band left out) and the display rounds it (worlds.ts
- * meterShows: 0.01 V, 0.1 Ω on 200 Ω, whole points of lamp brightness, "OL" over range). The
+ * the probe's tolerance (its pulsing band left out) and the display rounds it, staying within that
+ * spec as a meter's stated accuracy does (worlds.ts meterShows: 0.01 V, 0.1 Ω on 200 Ω, whole
+ * points of lamp brightness, "OL" over range). The
  * hunt ends when the plan has no next probe, asks again for one already taken, or after 40.
  *
  * Outcomes are judged by site (a joint at 20 Ω and at 35 Ω is one site): correct when the true

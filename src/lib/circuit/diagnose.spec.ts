@@ -215,6 +215,25 @@ describe('suspects by effect, away from the marked parts\u2019 wiring', () => {
 		expect(s?.label).toMatch(/fuse 15 blows/);
 	});
 
+	it('an ohms reading across a sender off the marked parts\u2019 wiring spans the sender\u2019s travel', () => {
+		// Another invented harness (72 parts, seed 5114): a hard short at lamp 20's feed sags most of
+		// the harness; sender 23 is on none of the marked parts' wiring, and its resistance runs over
+		// its whole travel when its position is not known (uncertainty.ts).
+		const g2 = generateHarness(5114, { parts: 72 });
+		const sc2 = restorerScenario(g2.doc, g2.scenario);
+		const c2 = buildCircuit(g2.doc, sc2);
+		const b2 = new Base(c2);
+		const node = c2.terminalNode({ part: 'la20', terminal: 'feed' });
+		const marks = marksSeen(c2, b2.solution, settleFuses(b2, c2, { changes: [{ type: 'to-chassis', node, ohms: 0.16 }], label: 'short' }).changes);
+		const r = diagnose({ doc: g2.doc, scenario: sc2, marks });
+		const abnormal = marks.filter((m) => m.mark !== 'normal').map((m) => m.part);
+		expect(regionOf(g2.doc, sc2, abnormal).parts.has('se23')).toBe(false);
+		const p = r.probes.findIndex((q) => q.id === 'ohms:se23:feed:earth');
+		expect(p).toBeGreaterThanOrEqual(0);
+		const band = r.probes[p].healthyBand;
+		expect(band.high - band.low).toBeGreaterThan(5);
+	});
+
 	it('a joint whose reading turns back once the circuit changes state keeps every size it explains inside its band', () => {
 		// Volts at lamp 71's earth rise with the joint (the divider of joint and lamp) until, between
 		// 14 and 20 Ω, the circuit changes state and the reading falls back: not monotonic.

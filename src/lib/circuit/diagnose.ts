@@ -557,7 +557,9 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		return out;
 	};
 	const groups = new Map<string, { readings: number[][]; healthy: number[] }[]>();
-	for (const w of factorWorlds(doc, scenario, u, region)) {
+	// Senders anywhere the probes reach, not only on the marked parts' wiring: an ohms reading
+	// across a sender off their path still depends on where its float or bulb sits.
+	for (const w of factorWorlds(doc, scenario, u, probeRegion)) {
 		const g = w.id.slice(0, w.id.lastIndexOf(':'));
 		(groups.get(g) ?? groups.set(g, []).get(g)!).push(solveWorld(w.doc, w.scenario, g === 'stabilizer'));
 	}

@@ -155,7 +155,7 @@ export function displayStep(kind: 'volts' | 'drop' | 'ohms', value: number): num
 /**
  * What a person reads for a true value (a probe's table value: volts, lamp brightness in %, ohms):
  * the meter's error drawn uniformly within ±(rel·|x| + abs) of its accuracy (no pulsing band: that
- * is the engine's allowance, not the meter's error), then the display: volts to their range's
+ * is the engine's allowance, not the meter's error; the display stays within that spec), then the display: volts to their range's
  * step, ohms likewise and "OL" at or above the top of range, lamp brightness judged to whole
  * points and never below dark. With no generator the error is left out (the display only).
  */
@@ -170,13 +170,18 @@ export function meterShows(
 	if (kind === 'ohms' && !(value < top)) return 'OL';
 	const half = (accuracy.rel ?? 0) * Math.abs(value) + (accuracy.abs ?? 0);
 	const x = rng ? value + rng.range(-half, half) : value;
-	if (kind === 'lamp') return Math.max(0, Math.round(x));
+	// A meter's ±(% + counts) is stated for what its display shows, rounding included: a reading
+	// rounded past the spec is shown one step nearer the true value.
+	const within = (shown: number, step: number) => (rng && Math.abs(shown - value) > half + 1e-9 ? toStep(shown - Math.sign(shown - value) * step, step) : shown);
+	if (kind === 'lamp') return Math.max(0, within(Math.round(x), 1));
 	if (kind === 'ohms') {
 		if (!(x < top)) return 'OL';
 		const shown = Math.max(0, x);
-		return toStep(shown, displayStep('ohms', shown));
+		const step = displayStep('ohms', shown);
+		return Math.max(0, within(toStep(shown, step), step));
 	}
-	return toStep(x, displayStep(kind, x));
+	const step = displayStep(kind, x);
+	return within(toStep(x, step), step);
 }
 
 /** x rounded to a whole number of steps, printed to the step's decimals (12.34 stays 12.34, not 12.340000000000002). */
