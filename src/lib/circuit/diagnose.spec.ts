@@ -1,7 +1,7 @@
 // Diagnosis on the invented demo harness and small hand-built circuits, each case reasoned by hand.
 import { describe, expect, it } from 'vitest';
 import { demoHarness, withOppositeEarth } from './demo';
-import { diagnose, FUSE_BLOWS, settleFuses } from './diagnose';
+import { diagnose, FUSE_BLOWS, NEAREST_POOL, settleFuses } from './diagnose';
 import { buildCircuit } from './circuit';
 import { regionOf, type Change } from './faults';
 import { Base, evaluateHypothesis, fullReading } from './predict';
@@ -248,6 +248,20 @@ describe('suspects by effect, away from the marked parts\u2019 wiring', () => {
 			expect(at(size)).toBeGreaterThanOrEqual(band.low);
 			expect(at(size)).toBeLessThanOrEqual(band.high);
 		}
+	});
+});
+
+describe('marks no fault of the drawing explains', () => {
+	it('goes on with the faults that come nearest, says so, and lets the readings decide', () => {
+		// One lamp on a fused feed marked brighter than usual: every fault the drawing can have (a
+		// joint, an open, a short, a run-down battery) only dims it (Ohm's law, worked by hand), so
+		// neither one fault nor two explain the mark.
+		const r = diagnose({ doc: lampCircuit, scenario: defaultScenario(lampCircuit), marks: [{ part: 'lamp', mark: 'reads-high' }] });
+		expect(r.explainedBy).toBe('nearest');
+		expect(r.suspects.length).toBeGreaterThan(0);
+		expect(r.suspects.length).toBeLessThanOrEqual(NEAREST_POOL);
+		expect(r.notes.some((n) => /come nearest/.test(n))).toBe(true);
+		expect(r.plan.steps.length).toBeGreaterThan(0);
 	});
 });
 

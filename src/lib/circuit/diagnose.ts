@@ -98,7 +98,8 @@ export interface BatteryState {
 export interface DiagnoseResult {
 	suspects: SuspectOut[];
 	/** "single" when single faults explain the marks; "double" when only pairs do; "none" when nothing does. */
-	explainedBy: 'single' | 'double' | 'none';
+	/** 'nearest': nothing explains every mark; the suspects are the single faults that come nearest. */
+	explainedBy: 'single' | 'double' | 'nearest' | 'none';
 	/** `healthyBand`: what the harness as drawn reads there in a real vehicle (narrowed once the battery is read). */
 	probes: (Omit<ProbeSpec, 'meter' | 'order'> & { expected: { suspect: string; reading: number }[]; healthy: number; healthyBand: ReadingRange })[];
 	/** The bands in force (rows: probes, columns: suspects): the table's, narrowed once the battery is read. */
@@ -468,11 +469,33 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 				const b = top[j];
 				pairs.push({ id: `${a.id}+${b.id}`, label: `${a.label}; and ${b.label}`, kind: 'double', prior: a.prior * b.prior * DOUBLE_FAULT_FACTOR, changes: [...a.changes, ...b.changes], place: [...a.place, ...b.place], site: `${a.site}+${b.site}` });
 			}
+		const singles = evaluated;
 		evaluated = evaluate(pairs, [marksWorlds[0]]);
 		found = evaluated.filter((e) => e.explains);
 		if (!found.length) {
-			explainedBy = 'none';
-			notes.push('No single or double fault of the region explains the marks: check the marks, the scenario (switch and sender positions) and the diagram.');
+			// The vehicle differs from the drawing more than its tolerances say (a relay at another
+			// threshold, a part drawing where the drawing has it off): the readings, which do not
+			// depend on the marks, can still find the fault. Go on with the single faults whose marks
+			// come nearest (markMiss), each at its nearest size, and say so.
+			const nearestPerSite = new Map<string, (typeof singles)[number]>();
+			for (const e of singles) {
+				const prev = nearestPerSite.get(e.h.site);
+				if (e.h.kind !== 'none' && (!prev || e.miss < prev.miss)) nearestPerSite.set(e.h.site, e);
+			}
+			const nearest = [...nearestPerSite.values()].sort((a, b) => a.miss - b.miss || b.h.prior - a.h.prior).slice(0, NEAREST_POOL);
+			if (nearest.length) {
+				explainedBy = 'nearest';
+				for (const e of nearest) {
+					e.explains = true;
+					e.fit = Math.exp(-e.miss);
+				}
+				evaluated = singles;
+				found = nearest;
+				notes.push(`No single or double fault of the drawing explains every mark: the ${nearest.length} faults whose marks come nearest are the suspects, and the readings decide. Check the marks and the scenario (switch and sender positions); the vehicle may differ from the drawing.`);
+			} else {
+				explainedBy = 'none';
+				notes.push('No single or double fault of the region explains the marks: check the marks, the scenario (switch and sender positions) and the diagram.');
+			}
 		}
 	}
 
@@ -774,6 +797,9 @@ function explanationOf(result: DiagnoseResult, battery: BatteryState | null, pro
 
 /** How far a fault off the marked parts' wiring must move every abnormal mark, at its strongest, to be a suspect (invented: a third of the smallest mark threshold, 15 %). */
 export const SCREEN_MOVE = 0.05;
+
+/** Suspects kept when no fault explains the marks: the faults that come nearest (invented; enough for a few sites and their neighbours). */
+export const NEAREST_POOL = 12;
 
 /** Most single suspects paired when looking for two faults behind readings no single one explains. */
 export const PAIR_POOL = 6;

@@ -461,7 +461,12 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 		readings,
 		battery,
 		groups: result.groups.map((g) => ({ suspects: g.suspects.map((id) => labelOf.get(id) ?? id), action: g.action, final: !!g.final })),
-		notes: result.explainedBy === 'none' ? ['No single or double fault of the region explains the marks.'] : [],
+		notes:
+			result.explainedBy === 'none'
+				? ['No single or double fault of the region explains the marks.']
+				: result.explainedBy === 'nearest'
+					? ['No fault of the drawing explains every mark: the suspects are the faults that come nearest, and the readings decide.']
+					: [],
 		region: { parts: [...regionParts], wires: [...regionWires] },
 		fileName: `checklist-${slug(v.name)}-${isoDate(diagnosis.createdAt)}-${diagnosis.id.slice(0, 8)}.pdf`
 	};
