@@ -9,6 +9,7 @@ import * as accounts from '../src/lib/server/auth/accounts';
 import { db } from '../src/lib/server/db';
 import { clubMembers, clubs, comments, diagnoses, diagramShares, diagrams, vehicles, type Diagram, type User } from '../src/lib/server/db/schema';
 import * as diagnosisStore from '../src/lib/server/diagnoses';
+import { closePlanning } from '../src/lib/server/planning/pool';
 import * as diagramStore from '../src/lib/server/garage/diagrams';
 import { demoHarness } from '../src/lib/circuit/demo';
 import { defaultScenario } from '../src/lib/circuit/scenario';
@@ -49,7 +50,7 @@ async function seedHunt(user: User, diagram: Diagram, hunt: DemoHunt) {
 	const [row] = await db.select().from(diagnoses).where(eq(diagnoses.id, diagnosis.id));
 	for (let step = 0; step < 12; step++) {
 		const loaded = await diagnosisStore.load(row);
-		const next = diagnosisStore.planOf(loaded).result.plan.steps[0];
+		const next = (await diagnosisStore.planOf(loaded)).result.plan.steps[0];
 		if (!next) break;
 		const [reading] = readingsIf({ doc, scenario, probes: [next.probe], fault: hunt.plantedFault });
 		const takenAt = new Date(started.getTime() + (step + 1) * 6 * 60_000).toISOString();
@@ -137,5 +138,6 @@ async function main() {
 try {
 	await main();
 } finally {
+	await closePlanning();
 	await db.$client.end();
 }

@@ -2,9 +2,10 @@
 import { json, redirect, type Handle, type HandleServerError } from '@sveltejs/kit';
 import * as session from '$lib/server/auth/session';
 import { close } from '$lib/server/db';
+import { closePlanning } from '$lib/server/planning/pool';
 
 // adapter-node stops taking requests on SIGTERM/SIGINT, then emits this; the idle database pool
-// would otherwise keep the process alive for ever.
+// and planning threads would otherwise keep the process alive for ever.
 // (Registered once: in development this module is re-run on every change.)
 const registered = Symbol.for('loomwright.closeOnShutdown');
 const flags = globalThis as typeof globalThis & { [registered]?: true };
@@ -12,6 +13,7 @@ if (!flags[registered]) {
 	flags[registered] = true;
 	process.on('sveltekit:shutdown', () => {
 		void close();
+		void closePlanning();
 	});
 }
 

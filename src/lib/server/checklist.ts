@@ -8,7 +8,7 @@ import * as diagnosisStore from './diagnoses';
 export async function checklistFor(locals: App.Locals, diagnosisId: string, printedAt = new Date()): Promise<{ model: ChecklistModel; loaded: diagnosisStore.Loaded }> {
 	const { diagnosis, diagram, vehicle } = await requireDiagnosis(locals, diagnosisId, 'view');
 	const loaded = await diagnosisStore.load(diagnosis);
-	const { result } = diagnosisStore.planOf(loaded);
+	const { result } = await diagnosisStore.planOf(loaded);
 	const model = checklistModel({
 		vehicle,
 		diagram: { title: diagram.title },

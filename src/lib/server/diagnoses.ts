@@ -11,13 +11,14 @@ import { METER_PROFILES, MeterProfileSchema } from '../circuit/meter';
 import type { HarnessDocument } from '../circuit/schema';
 import { MARKS } from '../circuit/symptoms';
 import { checkUncertainty, UncertaintySchema, type Uncertainty } from '../circuit/uncertainty';
-import { basePlan, planDiagnosis, type DiagnosisJson, type DiagnosisPlan, type PlanInputs, type ReadingJson } from '../diagnosis/session';
+import { readingsForPlan, type DiagnosisJson, type DiagnosisPlan, type PlanInputs, type ReadingJson } from '../diagnosis/session';
 import type { DiagnoseResult } from '../circuit/diagnose';
 import { db } from './db';
 import { diagnoses, diagnosisReadings, diagramRevisions, users, type Diagnosis, type DiagnosisReading, type Diagram } from './db/schema';
 import { documentToPlan, scenarioToPlan } from './documents';
 import { BadRequest } from './http';
 import type { Issue } from './issues';
+import * as planning from './planning/pool';
 
 export const MarkSchema = z.object({ part: z.string().min(1), mark: z.enum(MARKS) });
 const MeterSchema = z.union([z.enum(Object.keys(METER_PROFILES) as [string, ...string[]]), MeterProfileSchema]);
@@ -131,37 +132,71 @@ export async function documentAt(diagramId: string, revision: number): Promise<H
 	return documentToPlan(row.document);
 }
 
-// Plans before readings, per diagnosis version and uncertainty (marks, scenario, meter and
-// uncertainty change the version; the document is fixed by the diagnosis's revision). The circuit
-// solves are the cost; readings then re-plan from the kept prediction table. A small LRU: most
+// Plans are pure functions of the diagnosis version and uncertainty (marks, scenario, meter and
+// uncertainty change the version; the document is fixed by the diagnosis's revision) and the
+// readings in force: both are kept, so re-opening a diagnosis, printing its checklist or checking
+// a reading's probe does not plan again. The circuit solves (the plan before readings) run in the
+// planning threads; concurrent requests for the same plan share one run. Small LRUs: most
 // recently used last.
 const KEEP = 64;
-const kept = new Map<string, DiagnoseResult>();
+const bases = new Map<string, DiagnoseResult>();
+const plans = new Map<string, DiagnosisPlan>();
+const running = new Map<string, Promise<unknown>>();
 type Keyed = PlanInputs & { id?: string; version?: number };
 const keyOf = (d: Keyed) => (d.id ? `${d.id}:${d.version}:${JSON.stringify(d.uncertainty ?? null)}` : null);
 
-function base(doc: HarnessDocument, d: Keyed): DiagnoseResult {
-	const key = keyOf(d);
-	const hit = key ? kept.get(key) : undefined;
-	if (hit) {
-		kept.delete(key!);
-		kept.set(key!, hit);
-		return hit;
+function kept<T>(cache: Map<string, T>, key: string): T | undefined {
+	const hit = cache.get(key);
+	if (hit !== undefined) {
+		cache.delete(key);
+		cache.set(key, hit);
 	}
-	const made = basePlan(doc, d);
-	if (key) remember(key, made);
+	return hit;
+}
+
+function keep<T>(cache: Map<string, T>, key: string, value: T): void {
+	cache.set(key, value);
+	if (cache.size > KEEP) cache.delete(cache.keys().next().value!);
+}
+
+/** One run per key at a time: a second request for the same plan waits for the first. */
+function once<T>(key: string | null, make: () => Promise<T>): Promise<T> {
+	if (!key) return make();
+	const inFlight = running.get(key) as Promise<T> | undefined;
+	if (inFlight) return inFlight;
+	const made = make().finally(() => running.delete(key));
+	running.set(key, made);
 	return made;
 }
 
-function remember(key: string, result: DiagnoseResult): void {
-	kept.set(key, result);
-	if (kept.size > KEEP) kept.delete(kept.keys().next().value!);
+async function base(doc: HarnessDocument, d: Keyed): Promise<DiagnoseResult> {
+	const key = keyOf(d);
+	const hit = key ? kept(bases, key) : undefined;
+	if (hit) return hit;
+	return once(key && `base:${key}`, async () => {
+		const made = await planning.basePlanned(doc, inputsOf(d));
+		if (key) keep(bases, key, made);
+		return made;
+	});
 }
 
+const inputsOf = (d: Keyed): PlanInputs => ({ scenario: d.scenario, marks: d.marks, meter: d.meter, uncertainty: d.uncertainty ?? null });
+
 /** Plans, turning the planner's field errors into a 400. */
-function plan(doc: HarnessDocument, d: Keyed, readings: ReadingJson[]): DiagnosisPlan {
+async function plan(doc: HarnessDocument, d: Keyed, readings: ReadingJson[]): Promise<DiagnosisPlan> {
 	try {
-		return planDiagnosis(doc, d, readings, base(doc, d));
+		const used = readingsForPlan(readings);
+		const key = keyOf(d);
+		const planKey = key && `${key}|${JSON.stringify(used)}`;
+		const hit = planKey ? kept(plans, planKey) : undefined;
+		if (hit) return hit;
+		const start = await base(doc, d);
+		if (!Object.keys(used).length) return { result: start, used };
+		return await once(planKey && `plan:${planKey}`, async () => {
+			const made = await planning.readingsPlanned(doc, inputsOf(d), readings, start);
+			if (planKey) keep(plans, planKey, made);
+			return made;
+		});
 	} catch (e) {
 		if (e instanceof DiagnoseError) throw new BadRequest('Some fields need fixing.', e.issues);
 		throw e;
@@ -178,13 +213,13 @@ export async function start(user: SessionUser, diagram: Diagram, input: z.output
 	const title = input.title || describeMarks(input.marks.map((m) => ({ ...m, key: names.get(m.part)?.key ?? m.part, label: names.get(m.part)?.label ?? '' })));
 	checkedUncertainty(doc, input.uncertainty);
 	const draft = { scenario, marks: input.marks, meter: input.meter, uncertainty: input.uncertainty ?? null };
-	const planned = plan(doc, draft, []);
+	const planned = await plan(doc, draft, []);
 	const [row] = await db
 		.insert(diagnoses)
 		.values({ diagramId: diagram.id, vehicleId: diagram.vehicleId, startedBy: user.id, diagramRevision: diagram.revision, title, ...draft })
 		.returning();
 	const diagnosis = toJson(row);
-	remember(keyOf(diagnosis)!, planned.result);
+	keep(bases, keyOf(diagnosis)!, planned.result);
 	return { diagnosis, plan: planned };
 }
 
@@ -219,7 +254,7 @@ export async function load(d: Diagnosis): Promise<Loaded> {
 	return { diagnosis: toJson(d), document, readings };
 }
 
-export function planOf(loaded: Loaded): DiagnosisPlan {
+export function planOf(loaded: Loaded): Promise<DiagnosisPlan> {
 	return plan(loaded.document, loaded.diagnosis, loaded.readings);
 }
 
@@ -228,7 +263,7 @@ export function planOf(loaded: Loaded): DiagnosisPlan {
  * checked against the plan's probes; every problem comes back with its index.
  */
 export async function addReadings(user: SessionUser, loaded: Loaded, input: z.output<typeof ReadingsSchema>['readings']): Promise<{ stored: number; already: number }> {
-	const probes = new Map(plan(loaded.document, loaded.diagnosis, []).result.probes.map((p) => [p.id, p]));
+	const probes = new Map((await plan(loaded.document, loaded.diagnosis, [])).result.probes.map((p) => [p.id, p]));
 	const issues: Issue[] = [];
 	input.forEach((r, i) => {
 		const p = probes.get(r.probe);
@@ -302,20 +337,20 @@ export async function update(loaded: Loaded, input: z.output<typeof UpdateSchema
 		uncertainty: input.uncertainty !== undefined ? input.uncertainty : loaded.diagnosis.uncertainty
 	};
 	checkedUncertainty(loaded.document, next.uncertainty);
-	const replanned = input.marks || input.scenario !== undefined || input.meter || input.uncertainty !== undefined ? plan(loaded.document, next, []) : null;
+	const replanned = input.marks || input.scenario !== undefined || input.meter || input.uncertainty !== undefined ? await plan(loaded.document, next, []) : null;
 	const saved = await writeVersioned(loaded.diagnosis, input.version, {
 		...next,
 		...(input.title ? { title: input.title } : {}),
 		...(input.status === 'open' ? { status: 'open' as const, concludedAt: null } : {})
 	});
-	if (replanned) remember(keyOf(saved)!, replanned.result);
+	if (replanned) keep(bases, keyOf(saved)!, replanned.result);
 	return saved;
 }
 
 export async function conclude(loaded: Loaded, input: z.output<typeof ConcludeSchema>): Promise<DiagnosisJson> {
 	let foundLabel = '';
 	if (input.foundSuspect) {
-		const suspect = planOf(loaded).result.suspects.find((s) => s.id === input.foundSuspect);
+		const suspect = (await planOf(loaded)).result.suspects.find((s) => s.id === input.foundSuspect);
 		if (!suspect) throw new BadRequest('Some fields need fixing.', [{ path: 'foundSuspect', message: `"${input.foundSuspect}" is not one of this diagnosis's suspects` }]);
 		foundLabel = suspect.label;
 	}

@@ -25,6 +25,26 @@ export class BadRequest extends Error {
 	}
 }
 
+/** Thrown when the server cannot take the work now (planning threads busy, a plan over its budget): 503 with Retry-After. */
+export class ServiceUnavailable extends Error {
+	constructor(
+		message: string,
+		readonly retryAfterSeconds: number
+	) {
+		super(message);
+	}
+}
+
+/** For a page's load: work the server cannot take now becomes SvelteKit's 503 page with the reason. */
+export async function orUnavailable<T>(work: Promise<T>): Promise<T> {
+	try {
+		return await work;
+	} catch (e) {
+		if (e instanceof ServiceUnavailable) error(503, e.message);
+		throw e;
+	}
+}
+
 /** Wraps an endpoint so thrown errors (access checks, bad bodies) become the JSON error shape. */
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 export function endpoint<E extends RequestEvent<any, any>>(
@@ -43,6 +63,11 @@ export function endpoint<E extends RequestEvent<any, any>>(
 
 function answerFor(event: RequestEvent, e: unknown): Response {
 	if (e instanceof BadRequest) return apiError(400, { error: e.message, issues: e.issues });
+	if (e instanceof ServiceUnavailable) {
+		const res = apiError(503, { error: e.message });
+		res.headers.set('retry-after', String(e.retryAfterSeconds));
+		return res;
+	}
 	if (isHttpError(e)) return apiError(e.status, { error: e.body.message });
 	console.error('[api]', event.request.method, event.url.pathname, e);
 	return apiError(500, { error: 'Something went wrong on our side. Try again in a moment.' });

@@ -1,3 +1,4 @@
+import { orUnavailable } from '$lib/server/http';
 import { requireDiagnosis } from '$lib/server/access';
 import * as diagnosisStore from '$lib/server/diagnoses';
 import * as vehicles from '$lib/server/garage/vehicles';
@@ -11,7 +12,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	const loaded = await diagnosisStore.load(diagnosis);
 	return {
 		...loaded,
-		plan: planView(diagnosisStore.planOf(loaded)),
+		plan: planView(await orUnavailable(diagnosisStore.planOf(loaded))),
 		vehicle: vehicles.toJson(vehicle),
 		diagram: { id: diagram.id, title: diagram.title, revision: diagram.revision },
 		canEdit: level === 'edit' || level === 'owner'

@@ -13,7 +13,7 @@ import type { RequestHandler } from './$types';
 export const GET: RequestHandler = endpoint(async ({ locals, params }) => {
 	const { diagnosis, vehicle, level } = await requireDiagnosis(locals, params.id, 'view');
 	const loaded = await diagnosisStore.load(diagnosis);
-	return json({ ...loaded, vehicle: vehicles.toJson(vehicle), plan: planView(diagnosisStore.planOf(loaded)), canEdit: level !== 'view' && level !== 'comment' });
+	return json({ ...loaded, vehicle: vehicles.toJson(vehicle), plan: planView(await diagnosisStore.planOf(loaded)), canEdit: level !== 'view' && level !== 'comment' });
 });
 
 /**
@@ -26,7 +26,7 @@ export const PATCH: RequestHandler = endpoint(async ({ locals, params, request }
 	const loaded = await diagnosisStore.load(diagnosis);
 	try {
 		const next = await diagnosisStore.update(loaded, input);
-		return json({ diagnosis: next, plan: planView(diagnosisStore.planOf({ ...loaded, diagnosis: next })) });
+		return json({ diagnosis: next, plan: planView(await diagnosisStore.planOf({ ...loaded, diagnosis: next })) });
 	} catch (e) {
 		if (e instanceof diagnosisStore.StaleVersion) return apiError(409, { error: `This diagnosis was changed elsewhere (now version ${e.current}). Reload it, then make your change again.` });
 		throw e;

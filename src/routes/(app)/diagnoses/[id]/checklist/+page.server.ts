@@ -1,3 +1,4 @@
+import { orUnavailable } from '$lib/server/http';
 import { regionSvg, svgDataUrl } from '$lib/diagnosis/region-svg';
 import { checklistFor } from '$lib/server/checklist';
 import type { PageServerLoad } from './$types';
@@ -5,7 +6,7 @@ import type { PageServerLoad } from './$types';
 // Everything the print page shows, made on the server: the page needs no request after it loads
 // (the region drawing comes as a data: URL), so it prints from the cache when offline.
 export const load: PageServerLoad = async ({ locals, params }) => {
-	const { model, loaded } = await checklistFor(locals, params.id);
+	const { model, loaded } = await orUnavailable(checklistFor(locals, params.id));
 	const svg = regionSvg(
 		loaded.document,
 		model.region,

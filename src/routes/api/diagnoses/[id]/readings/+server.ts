@@ -22,5 +22,5 @@ export const POST: RequestHandler = endpoint(async ({ locals, params, request })
 	const loaded = await diagnosisStore.load(diagnosis);
 	const counts = await diagnosisStore.addReadings(locals.user!, loaded, input.readings);
 	const readings = await diagnosisStore.readingsOf(diagnosis.id);
-	return json({ ...counts, readings, plan: planView(diagnosisStore.planOf({ ...loaded, readings })) });
+	return json({ ...counts, readings, plan: planView(await diagnosisStore.planOf({ ...loaded, readings })) });
 });

@@ -3,7 +3,8 @@ import { z } from 'zod';
 import { requireDiagram } from '$lib/server/access';
 import { documentToPlan, scenarioToPlan } from '$lib/server/documents';
 import { BadRequest, endpoint, readBody } from '$lib/server/http';
-import { diagnose, DiagnoseError, FAULT_KINDS } from '$lib/circuit/diagnose';
+import { DiagnoseError, FAULT_KINDS } from '$lib/circuit/diagnose';
+import { diagnosed } from '$lib/server/planning/pool';
 import { MARKS } from '$lib/circuit/symptoms';
 import { METER_PROFILES, MeterProfileSchema, PROBE_KINDS } from '$lib/circuit/meter';
 import { LOCATIONS } from '$lib/circuit/parts';
@@ -30,7 +31,7 @@ export const POST: RequestHandler = endpoint(async ({ locals, params, request })
 	const scenario = scenarioToPlan(doc, input.scenario);
 	const meter = typeof input.meter === 'string' ? METER_PROFILES[input.meter] : input.meter;
 	try {
-		const r = diagnose({ doc, scenario, marks: input.marks, meter, readings: input.readings, weights: input.weights, reach: input.reach, tools: input.tools });
+		const r = await diagnosed({ doc, scenario, marks: input.marks, meter, readings: input.readings, weights: input.weights, reach: input.reach, tools: input.tools });
 		return json({
 			revision: diagram.revision,
 			explainedBy: r.explainedBy,
