@@ -19,6 +19,7 @@ import { documentToPlan, scenarioToPlan } from './documents';
 import { BadRequest } from './http';
 import type { Issue } from './issues';
 import * as planning from './planning/pool';
+import { PlanCache } from './planning/cache';
 
 export const MarkSchema = z.object({ part: z.string().min(1), mark: z.enum(MARKS) });
 const MeterSchema = z.union([z.enum(Object.keys(METER_PROFILES) as [string, ...string[]]), MeterProfileSchema]);
@@ -136,49 +137,13 @@ export async function documentAt(diagramId: string, revision: number): Promise<H
 // uncertainty change the version; the document is fixed by the diagnosis's revision) and the
 // readings in force: both are kept, so re-opening a diagnosis, printing its checklist or checking
 // a reading's probe does not plan again. The circuit solves (the plan before readings) run in the
-// planning threads; concurrent requests for the same plan share one run. Small LRUs: most
-// recently used last.
-const KEEP = 64;
-const bases = new Map<string, DiagnoseResult>();
-const plans = new Map<string, DiagnosisPlan>();
-const running = new Map<string, Promise<unknown>>();
+// planning threads (planning/pool.ts), kept in planning/cache.ts.
+const bases = new PlanCache<DiagnoseResult>();
+const plans = new PlanCache<DiagnosisPlan>();
 type Keyed = PlanInputs & { id?: string; version?: number };
 const keyOf = (d: Keyed) => (d.id ? `${d.id}:${d.version}:${JSON.stringify(d.uncertainty ?? null)}` : null);
 
-function kept<T>(cache: Map<string, T>, key: string): T | undefined {
-	const hit = cache.get(key);
-	if (hit !== undefined) {
-		cache.delete(key);
-		cache.set(key, hit);
-	}
-	return hit;
-}
-
-function keep<T>(cache: Map<string, T>, key: string, value: T): void {
-	cache.set(key, value);
-	if (cache.size > KEEP) cache.delete(cache.keys().next().value!);
-}
-
-/** One run per key at a time: a second request for the same plan waits for the first. */
-function once<T>(key: string | null, make: () => Promise<T>): Promise<T> {
-	if (!key) return make();
-	const inFlight = running.get(key) as Promise<T> | undefined;
-	if (inFlight) return inFlight;
-	const made = make().finally(() => running.delete(key));
-	running.set(key, made);
-	return made;
-}
-
-async function base(doc: HarnessDocument, d: Keyed): Promise<DiagnoseResult> {
-	const key = keyOf(d);
-	const hit = key ? kept(bases, key) : undefined;
-	if (hit) return hit;
-	return once(key && `base:${key}`, async () => {
-		const made = await planning.basePlanned(doc, inputsOf(d));
-		if (key) keep(bases, key, made);
-		return made;
-	});
-}
+const base = (doc: HarnessDocument, d: Keyed): Promise<DiagnoseResult> => bases.getOrMake(keyOf(d), () => planning.basePlanned(doc, inputsOf(d)));
 
 const inputsOf = (d: Keyed): PlanInputs => ({ scenario: d.scenario, marks: d.marks, meter: d.meter, uncertainty: d.uncertainty ?? null });
 
@@ -187,16 +152,9 @@ async function plan(doc: HarnessDocument, d: Keyed, readings: ReadingJson[]): Pr
 	try {
 		const used = readingsForPlan(readings);
 		const key = keyOf(d);
-		const planKey = key && `${key}|${JSON.stringify(used)}`;
-		const hit = planKey ? kept(plans, planKey) : undefined;
-		if (hit) return hit;
 		const start = await base(doc, d);
 		if (!Object.keys(used).length) return { result: start, used };
-		return await once(planKey && `plan:${planKey}`, async () => {
-			const made = await planning.readingsPlanned(doc, inputsOf(d), readings, start);
-			if (planKey) keep(plans, planKey, made);
-			return made;
-		});
+		return await plans.getOrMake(key && `${key}|${JSON.stringify(used)}`, () => planning.readingsPlanned(doc, inputsOf(d), readings, start));
 	} catch (e) {
 		if (e instanceof DiagnoseError) throw new BadRequest('Some fields need fixing.', e.issues);
 		throw e;
@@ -219,7 +177,7 @@ export async function start(user: SessionUser, diagram: Diagram, input: z.output
 		.values({ diagramId: diagram.id, vehicleId: diagram.vehicleId, startedBy: user.id, diagramRevision: diagram.revision, title, ...draft })
 		.returning();
 	const diagnosis = toJson(row);
-	keep(bases, keyOf(diagnosis)!, planned.result);
+	bases.set(keyOf(diagnosis)!, planned.result);
 	return { diagnosis, plan: planned };
 }
 
@@ -343,7 +301,7 @@ export async function update(loaded: Loaded, input: z.output<typeof UpdateSchema
 		...(input.title ? { title: input.title } : {}),
 		...(input.status === 'open' ? { status: 'open' as const, concludedAt: null } : {})
 	});
-	if (replanned) keep(bases, keyOf(saved)!, replanned.result);
+	if (replanned) bases.set(keyOf(saved)!, replanned.result);
 	return saved;
 }
 
