@@ -39,9 +39,34 @@ export const handle: Handle = async ({ event, resolve }) => {
 		redirect(303, `/signin?next=${encodeURIComponent(next)}`);
 	}
 	const response = await resolve(event);
-	if (event.url.pathname.startsWith('/api/')) return asApiError(response);
-	return response;
+	return compressed(event.request, event.url.pathname.startsWith('/api/') ? asApiError(response) : response);
 };
+
+const COMPRESSIBLE = /^(application\/json|text\/html|text\/plain|text\/csv|image\/svg\+xml)/;
+
+// Pages, page data and API answers go out gzip-compressed when the client takes it (RFC 9110
+// §8.4): a diagnosis's JSON shrinks several times over a phone's connection. Small answers and
+// ones already encoded go as they are.
+function compressed(request: Request, response: Response): Response {
+	const type = response.headers.get('content-type') ?? '';
+	const length = Number(response.headers.get('content-length') ?? Infinity);
+	if (
+		request.method === 'HEAD' ||
+		!response.body ||
+		response.status === 204 ||
+		response.status === 304 ||
+		response.headers.has('content-encoding') ||
+		!COMPRESSIBLE.test(type) ||
+		length < 1024 ||
+		!/\bgzip\b/.test(request.headers.get('accept-encoding') ?? '')
+	)
+		return response;
+	const headers = new Headers(response.headers);
+	headers.set('content-encoding', 'gzip');
+	headers.delete('content-length');
+	headers.append('vary', 'Accept-Encoding');
+	return new Response(response.body.pipeThrough(new CompressionStream('gzip')), { status: response.status, statusText: response.statusText, headers });
+}
 
 // The API answers every error in its one JSON shape, { error }, including those SvelteKit makes
 // itself: 404 for an unknown address and 405 for a method an endpoint does not have.

@@ -2,7 +2,7 @@
 // diagnose.spec.ts, reached through the API with its access rules and error shape.
 import { beforeAll, describe, expect, it } from 'vitest';
 import { demoHarness } from '../../src/lib/circuit/demo';
-import { api, signedInAccount, type SignedIn } from './helpers';
+import { api, baseUrl, signedInAccount, type SignedIn } from './helpers';
 
 let owner: SignedIn;
 let stranger: SignedIn;
@@ -52,6 +52,33 @@ describe('POST /api/diagrams/[id]/probe-plan', () => {
 		const remaining = again.body.readings.remaining.map((x: { suspect: string }) => x.suspect);
 		expect(remaining).toContain(truth);
 		expect(remaining.length).toBeLessThan(r.body.suspects.length);
+	});
+
+	it('answers small: the probes the steps and the minimal set name, every candidate only when asked', async () => {
+		const r = await api('POST', `/api/diagrams/${diagramId}/probe-plan`, owner.cookie, bothGaugesLow);
+		const named = new Set([...r.body.plan.steps.map((s: { probe: string }) => s.probe), ...r.body.minimalSet.probes]);
+		const sent = r.body.probes.map((p: { id: string }) => p.id);
+		expect(new Set(sent)).toEqual(named);
+		expect(r.body.probeCount).toBeGreaterThan(sent.length);
+		const full = await api('POST', `/api/diagrams/${diagramId}/probe-plan`, owner.cookie, { ...bothGaugesLow, detail: 'full' });
+		expect(full.body.probes.length).toBe(r.body.probeCount);
+		expect(full.body.plan.steps).toEqual(r.body.plan.steps);
+	});
+
+	it('sends its JSON gzip-compressed to a client that takes it (RFC 9110 §8.4), as it is to one that does not', async () => {
+		const ask = (encoding: string) =>
+			fetch(`${baseUrl()}/api/diagrams/${diagramId}/probe-plan`, {
+				method: 'POST',
+				headers: { cookie: owner.cookie, 'content-type': 'application/json', 'accept-encoding': encoding },
+				body: JSON.stringify(bothGaugesLow)
+			});
+		const zipped = await ask('gzip');
+		expect(zipped.headers.get('content-encoding')).toBe('gzip');
+		expect(zipped.headers.get('vary')).toMatch(/accept-encoding/i);
+		const plain = await ask('identity');
+		expect(plain.headers.get('content-encoding')).toBeNull();
+		// fetch unpacks gzip: both carry the same plan.
+		expect((await zipped.json()).plan.steps).toEqual((await plain.json()).plan.steps);
 	});
 
 	it('answers 400 naming the mark that names no part', async () => {

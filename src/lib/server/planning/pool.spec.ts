@@ -54,6 +54,9 @@ describe('planning threads', () => {
 		expect(err).toBeInstanceOf(ServiceUnavailable);
 		expect(err.message).toMatch(/took longer than/);
 		expect(err.retryAfterSeconds).toBeGreaterThan(0);
+		// The stopped thread is replaced: the next plan is made.
+		delete process.env.LOOM_PLAN_BUDGET_MS;
+		expect((await basePlanned(doc, inputs)).suspects.length).toBeGreaterThan(1);
 	});
 
 	it('say the region is too large when a plan outgrows its heap, instead of growing', async () => {

@@ -2,7 +2,7 @@
 // another's page: the server's own thread only reads, writes and answers. Each plan has a time
 // budget and each thread a heap limit; past either the request gets a clear 503, not a server that
 // grows or stalls. Where no built thread is found (vite dev, tests) the TypeScript source runs in
-// the threads through tsx.
+// the threads through tsx (thread-source.js).
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { dirname, join } from 'node:path';
@@ -14,6 +14,7 @@ import type { HarnessDocument } from '../../circuit/schema';
 import type { DiagnosisPlan, PlanInputs, ReadingJson } from '../../diagnosis/session';
 import { ServiceUnavailable } from '../http';
 import type { PlanAnswer, PlanTask } from './thread';
+import type { Detail, ProbePlanAnswer } from './probe-plan';
 
 /** Longest a plan may run (ms); LOOM_PLAN_BUDGET_MS overrides. Invented: a restorer waits a minute at most. */
 const budgetMs = () => Number(process.env.LOOM_PLAN_BUDGET_MS) || 60_000;
@@ -29,24 +30,22 @@ export function threadCount(): number {
 }
 
 /** The built thread (scripts/build-plan-thread.ts puts it beside the server's entry), else the source. */
-function threadFile(): { filename: string; execArgv: string[] } {
+function threadFile(): string {
 	let dir = dirname(fileURLToPath(import.meta.url));
 	for (let i = 0; i < 5; i++, dir = dirname(dir)) {
 		const built = join(dir, 'plan-thread.js');
-		if (existsSync(built)) return { filename: built, execArgv: [] };
+		if (existsSync(built)) return built;
 	}
-	return { filename: join(dirname(fileURLToPath(import.meta.url)), 'thread.ts'), execArgv: ['--import', 'tsx'] };
+	return join(dirname(fileURLToPath(import.meta.url)), 'thread-source.js');
 }
 
 let pool: Piscina | null = null;
 
 function threads(): Piscina {
 	if (pool) return pool;
-	const { filename, execArgv } = threadFile();
 	const count = threadCount();
 	pool = new Piscina({
-		filename,
-		execArgv,
+		filename: threadFile(),
 		minThreads: 0,
 		maxThreads: count,
 		// A thread stays a while after a plan: the next reading of the same hunt comes within minutes.
@@ -92,9 +91,9 @@ export function readingsPlanned(doc: HarnessDocument, inputs: PlanInputs, readin
 	return run({ kind: 'readings', doc, inputs, readings, base });
 }
 
-/** A whole diagnosis as the probe-plan API asks it. */
-export function diagnosed(input: DiagnoseInput): Promise<DiagnoseResult> {
-	return run({ kind: 'diagnose', input });
+/** A whole diagnosis as the probe-plan API asks it, in the API's answer (probe-plan.ts). */
+export function probePlanned(input: DiagnoseInput, revision: number, detail?: Detail): Promise<ProbePlanAnswer> {
+	return run({ kind: 'probe-plan', input, revision, detail });
 }
 
 /** Stops the threads (server shutdown, tests). */
