@@ -161,11 +161,20 @@ stop)
 	[ -d "$data" ] || exit 0
 	as_server "$bin/pg_ctl" -D "$data" -m fast stop >/dev/null 2>&1 || true
 	;;
+status)
+	# Exit 0 when the cluster is running.
+	bin=$(find_bin)
+	[ -n "$bin" ] || exit 1
+	setup_runner
+	[ -L "$data" ] && data=$(readlink -f "$data")
+	[ -d "$data" ] || exit 1
+	as_server "$bin/pg_ctl" -D "$data" status >/dev/null 2>&1
+	;;
 url)
 	url "${2:-$app_db}"
 	;;
 *)
-	echo "usage: scripts/db.sh start|fresh NAME|stop|url [NAME]" >&2
+	echo "usage: scripts/db.sh start|fresh NAME|stop|status|url [NAME]" >&2
 	exit 2
 	;;
 esac

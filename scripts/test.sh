@@ -14,20 +14,33 @@ install_packages || exit 1
 command -v chromium >/dev/null || { say "installing Debian's chromium"; apt_install chromium || exit 1; }
 command -v ngspice >/dev/null || { say "installing ngspice (the SPICE oracle)"; apt_install ngspice || exit 1; }
 
-# A cluster of its own for tests (durability off), never the demo's data.
+# A cluster of its own for tests (durability off), never the demo's data. What this run starts
+# (the cluster, the fakes) it stops when it ends, also when interrupted, so a second checkout's
+# run can bind the same ports.
 export LOOM_PG_DATA=$root/.data/pg-test LOOM_PG_PORT=${LOOM_TEST_PG_PORT:-54330} LOOM_PG_FAST=1
+fakes_pid=
+stop_cluster=0
+cleanup() {
+	[ -n "$fakes_pid" ] && kill "$fakes_pid" 2>/dev/null
+	[ "$stop_cluster" = 1 ] && bash scripts/db.sh stop
+	return 0
+}
+trap cleanup EXIT
+trap 'exit 130' INT TERM
 if [ -n "${DATABASE_URL:-}" ]; then
 	say "DATABASE_URL is set: integration tests use it, e2e uses E2E_DATABASE_URL"
 	: "${E2E_DATABASE_URL:?set E2E_DATABASE_URL too when DATABASE_URL is set}"
 else
+	bash scripts/db.sh status || stop_cluster=1
 	DATABASE_URL=$(bash scripts/db.sh fresh loomwright_test) || exit 1
 	E2E_DATABASE_URL=$(bash scripts/db.sh fresh loomwright_e2e) || exit 1
 fi
 export DATABASE_URL E2E_DATABASE_URL
 
-export SMTP_PORT=2625 MAIL_API_PORT=2626 S3_ENDPOINT=http://127.0.0.1:4669 S3_DIR=$root/.data/test/s3
+# Ports of the mail and storage fakes; override them to run beside another checkout's tests.
+export SMTP_PORT=${LOOM_TEST_SMTP_PORT:-2625} MAIL_API_PORT=${LOOM_TEST_MAIL_API_PORT:-2626}
+export S3_ENDPOINT=http://127.0.0.1:${LOOM_TEST_S3_PORT:-4669} S3_DIR=$root/.data/test/s3
 start_fakes "$out/fakes.log" || exit 1
-trap 'kill $fakes_pid 2>/dev/null || true' EXIT
 
 declare -a names=() results=()
 step() {
