@@ -558,7 +558,17 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		specs = specs.filter((s) => only.has(s.id));
 	}
 	const spanCands = chosen.flatMap((e) => e.span);
-	const nominalRun = probeReadings(doc, scenario, c, base, [...cands, ...spanCands], specs, profile, fallbacks);
+	const everyRun = probeReadings(doc, scenario, c, base, [...cands, ...spanCands], specs, profile, fallbacks);
+	// A probe where every suspect, at every size sampled, reads alike (within a thousandth: below a
+	// meter's last digit) tells none of them apart, however wide the bands; on a large harness most
+	// probes are on circuits the suspects do not touch. They are dropped before
+	// the bands, which solve every suspect at every probe once per uncertain world. The battery's
+	// own probes and probes already read stay.
+	const telling = specs
+		.map((sp, i) => i)
+		.filter((i) => parts.get(specs[i].place.part)?.kind === 'battery' || input.readings?.[specs[i].id] !== undefined || tells(everyRun.readings[i]));
+	if (telling.length < specs.length) specs = telling.map((i) => specs[i]);
+	const nominalRun = telling.length < everyRun.readings.length ? { readings: telling.map((i) => everyRun.readings[i]), healthy: telling.map((i) => everyRun.healthy[i]) } : everyRun;
 	const readings = nominalRun.readings.map((row) => row.slice(0, cands.length));
 	const healthyReading = nominalRun.healthy;
 
@@ -793,6 +803,22 @@ function explanationOf(result: DiagnoseResult, battery: BatteryState | null, pro
 			return { cause: 'battery', text: `The battery reads ${Math.abs(battery.measured ?? 0).toFixed(2)} V, below ${battery.chargeBelow?.toFixed(1)} V: charge it, rest it some hours, and take the readings again.` };
 	}
 	return { cause: 'differs', text: DIFFERS_TEXT };
+}
+
+/** Whether the suspects' readings differ from each other by more than a thousandth of the larger (1 V floor), or in being readable. */
+function tells(row: readonly number[]): boolean {
+	let lo = Infinity;
+	let hi = -Infinity;
+	let unreadable = 0;
+	for (const x of row) {
+		if (Number.isNaN(x)) unreadable++;
+		else {
+			lo = Math.min(lo, x);
+			hi = Math.max(hi, x);
+		}
+	}
+	if (unreadable && unreadable < row.length) return true;
+	return hi - lo > 1e-3 * Math.max(1, Math.abs(lo), Math.abs(hi));
 }
 
 /** How far a fault off the marked parts' wiring must move every abnormal mark, at its strongest, to be a suspect (invented: a third of the smallest mark threshold, 15 %). */
