@@ -30,6 +30,8 @@ export const handle: Handle = async ({ event, resolve }) => {
 	}
 	// A read-only link may be sent with API reads; access.ts decides what it opens.
 	if (event.url.pathname.startsWith('/api/')) {
+		const refusal = crossSiteWrite(event.request, event.url.origin);
+		if (refusal) return withSecurityHeaders(refusal);
 		event.locals.linkToken = event.url.searchParams.get('link') ?? event.request.headers.get('x-loomwright-link');
 	}
 	// Signed-in pages live in the (app) group; its layout redirects too, but form actions run
@@ -39,8 +41,50 @@ export const handle: Handle = async ({ event, resolve }) => {
 		redirect(303, `/signin?next=${encodeURIComponent(next)}`);
 	}
 	const response = await resolve(event);
-	return compressed(event.request, event.url.pathname.startsWith('/api/') ? asApiError(response) : response);
+	return withSecurityHeaders(compressed(event.request, event.url.pathname.startsWith('/api/') ? asApiError(response) : response));
 };
+
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * SvelteKit refuses form posts from other sites; JSON writes to the API get the same check here
+ * (OWASP Cross-Site Request Forgery Prevention Cheat Sheet, "Verifying Origin With Standard
+ * Headers"): an Origin header naming another site is refused, and so is a browser's write that
+ * says (Sec-Fetch-Site) it comes from another site. A client that is not a browser sends neither
+ * and is judged by its session or link alone.
+ */
+function crossSiteWrite(request: Request, ownOrigin: string): Response | null {
+	if (SAFE_METHODS.has(request.method)) return null;
+	const origin = request.headers.get('origin');
+	const site = request.headers.get('sec-fetch-site');
+	const foreign = origin !== null ? origin !== ownOrigin : site !== null && site !== 'same-origin' && site !== 'none';
+	if (!foreign) return null;
+	const res = json({ error: `Writes to the Loomwright API are taken only from ${ownOrigin}; this one came from ${origin ?? 'another site'}.` }, { status: 403 });
+	res.headers.set('connection', 'close');
+	return res;
+}
+
+/**
+ * Headers on every answer beside the page's Content-Security-Policy (svelte.config.js): no
+ * address of ours (a read-only link's token included) is sent to another site as a referrer,
+ * answers are never sniffed as another type, and no site may frame a page (for browsers that
+ * predate CSP's frame-ancestors). Headers from a fetch() are immutable, so they are copied once.
+ */
+function withSecurityHeaders(response: Response): Response {
+	const extra: [string, string][] = [
+		['referrer-policy', 'same-origin'],
+		['x-content-type-options', 'nosniff'],
+		['x-frame-options', 'DENY']
+	];
+	try {
+		for (const [name, value] of extra) if (!response.headers.has(name)) response.headers.set(name, value);
+		return response;
+	} catch {
+		const headers = new Headers(response.headers);
+		for (const [name, value] of extra) if (!headers.has(name)) headers.set(name, value);
+		return new Response(response.body, { status: response.status, statusText: response.statusText, headers });
+	}
+}
 
 const COMPRESSIBLE = /^(application\/json|text\/html|text\/plain|text\/csv|image\/svg\+xml)/;
 
