@@ -3,6 +3,7 @@ import { json, redirect, type Handle, type HandleServerError } from '@sveltejs/k
 import * as session from '$lib/server/auth/session';
 import { close } from '$lib/server/db';
 import { closePlanning } from '$lib/server/planning/pool';
+import { findBadField } from '$lib/server/text-guard';
 
 // adapter-node stops taking requests on SIGTERM/SIGINT, then emits this; the idle database pool
 // and planning threads would otherwise keep the process alive for ever.
@@ -34,6 +35,8 @@ export const handle: Handle = async ({ event, resolve }) => {
 		if (refusal) return withSecurityHeaders(refusal);
 		event.locals.linkToken = event.url.searchParams.get('link') ?? event.request.headers.get('x-loomwright-link');
 	}
+	const unstorable = await unstorableForm(event.request, event.url.pathname);
+	if (unstorable) return withSecurityHeaders(unstorable);
 	// Signed-in pages live in the (app) group; its layout redirects too, but form actions run
 	// before any layout load, so the same rule is applied here first.
 	if (!event.locals.user && event.route.id?.startsWith('/(app)')) {
@@ -45,6 +48,36 @@ export const handle: Handle = async ({ event, resolve }) => {
 };
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * A form post to a page whose text the database cannot keep (a NUL character, a lone surrogate:
+ * text-guard.ts) is answered 400 naming the field before any action runs, so no action has to
+ * remember to check. A form enhanced in the browser gets the action-failure shape it reads
+ * (`{ type: 'failure', status, data }`, data in devalue's array form), others a short page.
+ */
+async function unstorableForm(request: Request, pathname: string): Promise<Response | null> {
+	if (SAFE_METHODS.has(request.method) || pathname.startsWith('/api/')) return null;
+	const type = request.headers.get('content-type') ?? '';
+	if (!/^(application\/x-www-form-urlencoded|multipart\/form-data)/i.test(type)) return null;
+	let form: FormData;
+	try {
+		form = await request.clone().formData();
+	} catch {
+		return null; // SvelteKit answers a body it cannot read itself
+	}
+	const bad = findBadField(form);
+	if (!bad) return null;
+	if (request.headers.get('x-sveltekit-action') === 'true') {
+		// devalue.stringify({ errors: { [field]: message }, message }): values are indexes into the array.
+		const data = JSON.stringify([{ errors: 1, message: 2 }, { [bad.path]: 2 }, bad.message]);
+		return json({ type: 'failure', status: 400, data });
+	}
+	const escaped = bad.message.replace(/[&<>"]/g, (c) => `&#${c.charCodeAt(0)};`);
+	return new Response(`<!doctype html><meta charset="utf-8"><title>Loomwright: a field needs fixing</title><p>${escaped}</p><p><a href="${pathname.replace(/[&<>"]/g, '')}">Back to the form</a></p>`, {
+		status: 400,
+		headers: { 'content-type': 'text/html; charset=utf-8' }
+	});
+}
 
 /**
  * SvelteKit refuses form posts from other sites; JSON writes to the API get the same check here

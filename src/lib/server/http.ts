@@ -3,6 +3,7 @@
 import { error, isHttpError, json, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { fromZod, type Issue } from './issues';
+import { findBadLine, findBadValue } from './text-guard';
 
 export interface ApiError {
 	error: string;
@@ -24,6 +25,9 @@ export class BadRequest extends Error {
 		super(message);
 	}
 }
+
+/** Thrown when a request body is larger than the server takes (BODY_SIZE_LIMIT): 413. */
+export class PayloadTooLarge extends Error {}
 
 /** Thrown when the server cannot take the work now (planning threads busy, a plan over its budget): 503 with Retry-After. */
 export class ServiceUnavailable extends Error {
@@ -63,6 +67,11 @@ export function endpoint<E extends RequestEvent<any, any>>(
 
 function answerFor(event: RequestEvent, e: unknown): Response {
 	if (e instanceof BadRequest) return apiError(400, { error: e.message, issues: e.issues });
+	if (e instanceof PayloadTooLarge) {
+		const res = apiError(413, { error: e.message });
+		res.headers.set('connection', 'close');
+		return res;
+	}
 	if (e instanceof ServiceUnavailable) {
 		const res = apiError(503, { error: e.message });
 		res.headers.set('retry-after', String(e.retryAfterSeconds));
@@ -89,13 +98,35 @@ async function drain(request: Request, res: Response): Promise<void> {
 	}
 }
 
-/** Reads and validates a JSON body; malformed JSON or a failed schema throws BadRequest. */
-export async function readBody<S extends z.ZodType>(request: Request, schema: S): Promise<z.infer<S>> {
+/**
+ * Reads and validates a JSON body: a body over the size limit throws PayloadTooLarge; malformed
+ * JSON, text the database cannot keep (NUL, lone surrogates), nesting deeper than MAX_DEPTH or a
+ * failed schema throws BadRequest naming the field.
+ */
+export async function readBody<S extends z.ZodType>(request: Request, schema: S, options: { fileFields?: string[] } = {}): Promise<z.infer<S>> {
+	let text: string;
+	try {
+		text = await request.text();
+	} catch (e) {
+		// adapter-node stops reading at BODY_SIZE_LIMIT and fails the stream with status 413.
+		if ((e as { status?: number })?.status === 413) throw new PayloadTooLarge(`The request body is larger than this server takes (${process.env.BODY_SIZE_LIMIT ?? '512K'}).`);
+		throw new BadRequest('The request body could not be read.');
+	}
 	let body: unknown;
 	try {
-		body = await request.json();
+		body = JSON.parse(text);
 	} catch {
 		throw new BadRequest('The request body is not valid JSON.');
+	}
+	// A file sent as text (fileFields) has its problems named by row rather than by field.
+	const files = options.fileFields ?? [];
+	const rest = files.length && body !== null && typeof body === 'object' && !Array.isArray(body) ? Object.fromEntries(Object.entries(body).filter(([k]) => !files.includes(k))) : body;
+	const bad = findBadValue(rest);
+	if (bad) throw new BadRequest(bad.message, [bad]);
+	for (const field of files) {
+		const value = (body as Record<string, unknown>)[field];
+		const line = typeof value === 'string' ? findBadLine(value) : null;
+		if (line) throw new BadRequest(line.message, [{ path: `row ${line.row}`, message: line.message }]);
 	}
 	const parsed = schema.safeParse(body);
 	if (!parsed.success) throw new BadRequest('Some fields need fixing.', fromZod(parsed.error));
