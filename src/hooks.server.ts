@@ -1,7 +1,8 @@
 // Puts the signed-in account and its session on event.locals, and nothing else of note.
 import { json, redirect, type Handle, type HandleServerError } from '@sveltejs/kit';
 import * as session from '$lib/server/auth/session';
-import { close } from '$lib/server/db';
+import { close, isDatabaseUnavailable } from '$lib/server/db';
+import { databaseUnavailable } from '$lib/server/http';
 import { closePlanning } from '$lib/server/planning/pool';
 import { findBadField } from '$lib/server/text-guard';
 
@@ -19,7 +20,15 @@ if (!flags[registered]) {
 }
 
 export const handle: Handle = async ({ event, resolve }) => {
-	const { user, session: current } = await session.read(event.cookies);
+	const isApi = event.url.pathname.startsWith('/api/');
+	let read: Awaited<ReturnType<typeof session.read>>;
+	try {
+		read = await session.read(event.cookies);
+	} catch (e) {
+		if (isDatabaseUnavailable(e)) return withSecurityHeaders(databaseUnavailable(isApi));
+		throw e;
+	}
+	const { user, session: current } = read;
 	if (user?.disabled && current) {
 		// Disabling ends sessions at once; this catches one created in the same instant.
 		await session.end(event.cookies, current.id);
@@ -43,7 +52,9 @@ export const handle: Handle = async ({ event, resolve }) => {
 		const next = event.url.pathname + event.url.search;
 		redirect(303, `/signin?next=${encodeURIComponent(next)}`);
 	}
-	const response = await resolve(event);
+	const resolved = await resolve(event);
+	// A page or its data whose load failed because the database is away: 503, not the 500 page.
+	const response = event.locals.databaseDown && resolved.status >= 500 ? databaseUnavailable(isApi) : resolved;
 	return withSecurityHeaders(compressed(event.request, event.url.pathname.startsWith('/api/') ? asApiError(response) : response));
 };
 
@@ -160,6 +171,10 @@ function asApiError(response: Response): Response {
 }
 
 export const handleError: HandleServerError = ({ error, event, status }) => {
+	if (isDatabaseUnavailable(error)) {
+		event.locals.databaseDown = true;
+		return { message: 'Loomwright cannot reach its database just now. Try again in a few seconds.' };
+	}
 	if (status !== 404) console.error('[server]', event.request.method, event.url.pathname, error);
 	return { message: 'Something went wrong on our side. Try again in a moment.' };
 };

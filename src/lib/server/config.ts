@@ -8,6 +8,11 @@ export const config = {
 	// http://localhost, so the demo keeps them; LOOM_INSECURE_COOKIES=1 is for plain http on a LAN.
 	secureCookies: env.NODE_ENV === 'production' && env.LOOM_INSECURE_COOKIES !== '1',
 	origin: env.ORIGIN ?? 'http://localhost:5173',
+	// How long the pool waits for PostgreSQL to accept a connection, and the longest a statement
+	// may run, before the request is answered 503 (a database that is away or stuck then costs a
+	// visitor about a second, not the driver's 30 s default).
+	dbConnectTimeoutSeconds: Number(env.LOOM_DB_CONNECT_TIMEOUT_S ?? 1.5),
+	dbStatementTimeoutMs: Number(env.LOOM_DB_STATEMENT_TIMEOUT_MS ?? 15000),
 	smtp: {
 		host: env.SMTP_HOST ?? '127.0.0.1',
 		port: Number(env.SMTP_PORT ?? 2525),

@@ -4,6 +4,7 @@ import { error, isHttpError, json, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { fromZod, type Issue } from './issues';
 import { findBadLine, findBadValue } from './text-guard';
+import { DATABASE_RETRY_SECONDS, isDatabaseUnavailable } from './db';
 
 export interface ApiError {
 	error: string;
@@ -78,8 +79,21 @@ function answerFor(event: RequestEvent, e: unknown): Response {
 		return res;
 	}
 	if (isHttpError(e)) return apiError(e.status, { error: e.body.message });
+	if (isDatabaseUnavailable(e)) return databaseUnavailable(true);
 	console.error('[api]', event.request.method, event.url.pathname, e);
 	return apiError(500, { error: 'Something went wrong on our side. Try again in a moment.' });
+}
+
+/**
+ * The answer while PostgreSQL is away: 503 with Retry-After (RFC 9110 §15.6.4, §10.2.3), the API's
+ * JSON shape for /api, a short page of its own for pages (no database is needed to show it).
+ */
+export function databaseUnavailable(api: boolean): Response {
+	const words = 'Loomwright cannot reach its database just now. Nothing you sent was saved; try again in a few seconds.';
+	const headers = { 'retry-after': String(DATABASE_RETRY_SECONDS), 'cache-control': 'no-store' };
+	if (api) return json({ error: words }, { status: 503, headers });
+	const page = `<!doctype html><html lang="en"><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>Loomwright: back in a moment</title><body style="font-family:system-ui,sans-serif;max-width:36rem;margin:3rem auto;padding:0 1rem;line-height:1.5"><h1>Back in a moment</h1><p>${words}</p><p><a href="">Try again</a></p></body></html>`;
+	return new Response(page, { status: 503, headers: { ...headers, 'content-type': 'text/html; charset=utf-8' } });
 }
 
 /**
