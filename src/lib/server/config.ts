@@ -2,6 +2,18 @@
 // process.env rather than $env so scripts, tests and the app share one module.
 const env = process.env;
 
+/**
+ * The caught-mail page shows every reset link, so it is on only when asked for (LOOM_DEV_MAIL=1,
+ * which the start command sets for the demo) and only while mail goes to the local catcher: an
+ * SMTP server on this machine without credentials. A deployment that sends real mail (another
+ * host, or a user and password) never shows it, whatever LOOM_DEV_MAIL says.
+ */
+export function devMailAllowed(e: Record<string, string | undefined>): boolean {
+	const host = e.SMTP_HOST ?? '127.0.0.1';
+	const loopback = host === 'localhost' || host === '::1' || /^127\./.test(host);
+	return e.LOOM_DEV_MAIL === '1' && loopback && !e.SMTP_USER && !e.SMTP_PASSWORD;
+}
+
 export const config = {
 	databaseUrl: env.DATABASE_URL ?? 'postgres://loomwright@127.0.0.1:54329/loomwright',
 	// Secure, __Host- prefixed session cookie in production. Browsers accept Secure cookies on
@@ -29,8 +41,8 @@ export const config = {
 		secretAccessKey: env.S3_SECRET_ACCESS_KEY ?? 'S3RVER',
 		forcePathStyle: env.S3_FORCE_PATH_STYLE !== '0'
 	},
-	// Shows the caught-mail page to admins; on wherever the local SMTP catcher is used.
-	devMail: env.LOOM_DEV_MAIL === '1',
+	// Shows the caught-mail page (reset and verification links) to admins: see devMailAllowed.
+	devMail: devMailAllowed(env),
 	// The local SMTP catcher's list of caught messages (scripts/fakes.ts), read by that page.
 	caughtMailUrl:
 		env.CAUGHT_MAIL_URL ?? `http://127.0.0.1:${env.MAIL_API_PORT ?? Number(env.SMTP_PORT ?? 2525) + 1}/messages`
