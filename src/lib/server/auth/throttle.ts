@@ -50,18 +50,21 @@ export async function reserve(keys: ThrottleKey[], now = new Date()): Promise<Th
 			.where(inArray(signInThrottle.key, sorted.map((k) => k.key)))
 			.orderBy(asc(signInThrottle.key))
 			.for('update');
+		// An attempt that waited for the locks may carry a clock reading older than the one the
+		// attempt before it wrote; time for this attempt is never before what is already recorded.
+		const at = new Date(Math.max(now.getTime(), ...rows.map((r) => r.lastFailureAt.getTime())));
 		let worst: ThrottleDecision = { allowed: true };
 		for (const { key, policy } of sorted) {
-			const decision = decide(rows.find((r) => r.key === key) ?? null, now, policy);
+			const decision = decide(rows.find((r) => r.key === key) ?? null, at, policy);
 			if (!decision.allowed && (worst.allowed || decision.retryAfterSeconds > worst.retryAfterSeconds)) worst = decision;
 		}
 		if (!worst.allowed) return worst;
 		for (const { key, policy } of sorted) {
 			const row = rows.find((r) => r.key === key)!;
-			const fresh = windowExpired(row, now, policy);
+			const fresh = windowExpired(row, at, policy);
 			await tx
 				.update(signInThrottle)
-				.set({ failures: fresh ? 1 : row.failures + 1, windowStartedAt: fresh ? now : row.windowStartedAt, lastFailureAt: now })
+				.set({ failures: fresh ? 1 : row.failures + 1, windowStartedAt: fresh ? at : row.windowStartedAt, lastFailureAt: at })
 				.where(eq(signInThrottle.key, key));
 		}
 		return worst;
