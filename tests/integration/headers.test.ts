@@ -64,7 +64,7 @@ describe('JSON writes from another site', () => {
 		const before = await vehicleCount();
 		const res = await fetch(`${baseUrl()}/api/vehicles`, {
 			method: 'POST',
-			headers: { cookie: owner.cookie, 'sec-fetch-site': 'cross-site', 'content-type': 'text/plain', accept: 'application/json' },
+			headers: { cookie: owner.cookie, 'sec-fetch-site': 'cross-site', 'content-type': 'application/json', accept: 'application/json' },
 			body: JSON.stringify(vehicle)
 		});
 		expect(res.status).toBe(403);
