@@ -6,6 +6,8 @@ declare global {
 			session: import('lucia').Session | null;
 			/** A read-only link token sent with an API request (?link= or x-loomwright-link). */
 			linkToken?: string | null;
+			/** Set when an error on this request came from the database being away (answered 503). */
+			databaseDown?: boolean;
 		}
 		interface Error {
 			message: string;

@@ -109,7 +109,7 @@ describe('reset requests per hour', () => {
 });
 
 describe('account page', () => {
-	it('changes the password only with the current one, and can end the other sessions', async () => {
+	it('changes the password only with the current one, and ends the other sessions by default', async () => {
 		const p = await person('Change Charlie');
 		const other = await signIn(p.email, p.password);
 		const page = await get('/account', p.cookie);
@@ -120,12 +120,21 @@ describe('account page', () => {
 		expect(wrong.status).toBe(400);
 		expect(await wrong.text()).toContain('not your current password');
 
-		const ok = await form('/account?/password', { current: p.password, password: 'fresh-tracer-ink-9', endOthers: 'on' }, p.cookie);
+		const ok = await form('/account?/password', { current: p.password, password: 'fresh-tracer-ink-9' }, p.cookie);
 		expect(ok.status).toBe(200);
 		expect(await ok.text()).toContain('1 other session ended');
 		expect((await api('GET', '/api/vehicles', other)).status).toBe(401);
 		expect((await api('GET', '/api/vehicles', p.cookie)).status).toBe(200);
 		expect(await accounts.signIn(p.email, 'fresh-tracer-ink-9', '127.0.0.9')).toMatchObject({ ok: true });
+	});
+
+	it('keeps the other sessions after a password change only when asked to', async () => {
+		const p = await person('Keeping Kim');
+		const other = await signIn(p.email, p.password);
+		const ok = await form('/account?/password', { current: p.password, password: 'dwell-angle-gauge-4', keepOthers: 'on' }, p.cookie);
+		expect(ok.status).toBe(200);
+		expect(await ok.text()).toContain('Password changed.');
+		expect((await api('GET', '/api/vehicles', other)).status).toBe(200);
 	});
 
 	it('lists own sessions and ends one by its handle; a handle of another account does nothing', async () => {

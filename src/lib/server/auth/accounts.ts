@@ -59,15 +59,16 @@ export const DISABLED_MESSAGE =
 	'This account has been disabled by a site admin, so it cannot sign in. Ask the site admin if you think this is a mistake.';
 
 /**
- * Checks a sign-in attempt against the throttle, then the password.
- * Failures count against the account and the client address (OWASP ASVS 4.0.3 §2.2.1);
+ * Counts a sign-in attempt on the throttle (atomically, in PostgreSQL), then checks the password.
+ * Attempts count against the account from this address, the account from every address and the
+ * address (OWASP ASVS 4.0.3 §2.2.1; OWASP Authentication Cheat Sheet, "Login Throttling");
  * the same message covers an unknown address and a wrong password (ASVS §2.2.1 / no account
  * enumeration), and an unknown address costs one argon2 verification like a known one.
  */
 export async function signIn(emailInput: string, password: string, address: string): Promise<SignInResult> {
 	const email = normaliseEmail(emailInput);
 	const keys = throttle.keysFor(email, address);
-	const decision = await throttle.check(keys);
+	const decision = await throttle.reserve(keys);
 	if (!decision.allowed) {
 		return {
 			ok: false,
@@ -79,12 +80,12 @@ export async function signIn(emailInput: string, password: string, address: stri
 	const user = await findByEmail(email);
 	const matches = user ? await verifyPassword(user.passwordHash, password) : await verifyDecoy(password);
 	if (!user || !matches) {
-		await throttle.recordFailure(keys);
+		// Already counted by reserve: nothing more to record.
 		return { ok: false, reason: 'mismatch', status: 400, message: MISMATCH_MESSAGE };
 	}
 	// Told only to someone who knows the password, so it reveals nothing to a guesser.
 	if (user.disabled) return { ok: false, reason: 'disabled', status: 403, message: DISABLED_MESSAGE };
-	await throttle.clear(keys[0].key);
+	await throttle.release(keys);
 	await throttle.prune();
 	return { ok: true, user };
 }

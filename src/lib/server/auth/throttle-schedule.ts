@@ -17,11 +17,29 @@ export interface ThrottlePolicy {
 	windowSeconds: number;
 }
 
-/** One account (keyed by its lower-cased e-mail, known or not). */
-export const ACCOUNT_POLICY: ThrottlePolicy = {
+/**
+ * One account from one client address (keyed by the lower-cased e-mail and the address): the
+ * strict limit. OWASP Authentication Cheat Sheet, "Login Throttling": throttle on the pair so a
+ * guesser at one address is slowed at once while the member, elsewhere, is not.
+ */
+export const PAIR_POLICY: ThrottlePolicy = {
 	freeFailures: 4,
 	firstDelaySeconds: 30,
 	maxDelaySeconds: 15 * 60,
+	maxFailuresPerWindow: 100,
+	windowSeconds: 60 * 60
+};
+
+/**
+ * One account from every address together: softer, against guessing spread over many addresses.
+ * Its wait never passes a minute, so an attacker cannot keep a member out for long (OWASP
+ * Authentication Cheat Sheet: an account lockout must not become a denial of service), and
+ * ASVS 4.0.3 §2.2.1's 100 failures an hour per account is never reached under its delays.
+ */
+export const ACCOUNT_POLICY: ThrottlePolicy = {
+	freeFailures: 20,
+	firstDelaySeconds: 10,
+	maxDelaySeconds: 60,
 	maxFailuresPerWindow: 100,
 	windowSeconds: 60 * 60
 };

@@ -8,7 +8,9 @@ import type { VehicleInput } from '../forms';
 import * as pages from '../manual-pages';
 
 export type VehicleJson = ReturnType<typeof toJson>;
+export type SharedVehicleJson = ReturnType<typeof sharedJson>;
 
+/** The whole vehicle, notes included: for its owner only (the garage, the owner's API). */
 export function toJson(v: Vehicle) {
 	return {
 		id: v.id,
@@ -22,6 +24,28 @@ export function toJson(v: Vehicle) {
 		createdAt: v.createdAt.toISOString(),
 		updatedAt: v.updatedAt.toISOString()
 	};
+}
+
+/**
+ * What someone a diagram is shared with (viewer, commenter, editor, club member) sees of its
+ * vehicle: the facts the drawing depends on, named field by field so that a column added to the
+ * table later stays private until it is listed here. The owner's notes are never in it.
+ */
+export function sharedJson(v: Vehicle) {
+	return {
+		id: v.id,
+		name: v.name,
+		make: v.make,
+		model: v.model,
+		year: v.year,
+		systemVoltage: v.systemVoltage,
+		earthPolarity: v.earthPolarity
+	};
+}
+
+/** The vehicle in the shape its audience may see: everything for its owner, the shared shape for anyone else. */
+export function forViewer(v: Vehicle, viewer: { id: string } | null | undefined): (SharedVehicleJson & { notes?: string }) | VehicleJson {
+	return viewer && v.ownerId === viewer.id ? toJson(v) : sharedJson(v);
 }
 
 /** The account's vehicles, newest first, each with how many diagrams it has. */

@@ -29,7 +29,9 @@ export const actions: Actions = {
 		const values = formObject(await request.formData());
 		const result = await accounts.changePassword(user.id, values.current ?? '', values.password ?? '');
 		if (!result.ok) return fail(400, { action: 'password', errors: { [result.field]: result.message } as Record<string, string> });
-		const ended = values.endOthers === 'on' && locals.session ? await session.endOthers(user.id, locals.session.id) : 0;
+		// A new password ends every other session unless the person asks to keep them (OWASP
+		// Session Management Cheat Sheet: renew or end sessions when the password changes).
+		const ended = values.keepOthers !== 'on' && locals.session ? await session.endOthers(user.id, locals.session.id) : 0;
 		return {
 			action: 'password',
 			message: ended ? `Password changed; ${ended} other session${ended === 1 ? '' : 's'} ended.` : 'Password changed.'

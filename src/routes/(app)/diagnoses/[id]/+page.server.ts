@@ -13,7 +13,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	return {
 		...loaded,
 		plan: planView(await orUnavailable(diagnosisStore.planOf(loaded))),
-		vehicle: vehicles.toJson(vehicle),
+		vehicle: vehicles.forViewer(vehicle, locals.user),
 		diagram: { id: diagram.id, title: diagram.title, revision: diagram.revision },
 		canEdit: level === 'edit' || level === 'owner'
 	};

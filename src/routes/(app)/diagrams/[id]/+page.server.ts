@@ -12,7 +12,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 		diagram: diagrams.toJson(diagram),
 		level,
 		basedOn: shares.basedOn(diagram),
-		vehicle: vehicles.toJson(vehicle),
+		vehicle: vehicles.forViewer(vehicle, locals.user),
 		history: await diagrams.history(diagram.id)
 	};
 };

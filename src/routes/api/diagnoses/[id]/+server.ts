@@ -13,7 +13,7 @@ import type { RequestHandler } from './$types';
 export const GET: RequestHandler = endpoint(async ({ locals, params }) => {
 	const { diagnosis, vehicle, level } = await requireDiagnosis(locals, params.id, 'view');
 	const loaded = await diagnosisStore.load(diagnosis);
-	return json({ ...loaded, vehicle: vehicles.toJson(vehicle), plan: planView(await diagnosisStore.planOf(loaded)), canEdit: level !== 'view' && level !== 'comment' });
+	return json({ ...loaded, vehicle: vehicles.forViewer(vehicle, locals.user), plan: planView(await diagnosisStore.planOf(loaded)), canEdit: level !== 'view' && level !== 'comment' });
 });
 
 /**

@@ -12,7 +12,7 @@ export const load: PageServerLoad = async ({ locals, params }) => {
 	const editable = canEdit(locals.user, diagram);
 	return {
 		diagram: diagrams.toJson(diagram, true),
-		vehicle: vehicles.toJson(vehicle),
+		vehicle: vehicles.forViewer(vehicle, locals.user),
 		editable,
 		palettes: editable && locals.user ? await palettes.listFor(locals.user) : [],
 		// Comment counts per part and wire, for those who may read and write comments.

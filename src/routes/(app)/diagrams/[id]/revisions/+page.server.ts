@@ -25,7 +25,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 	}
 	return {
 		diagram: { id: diagram.id, title: diagram.title, revision: diagram.revision },
-		vehicle: vehicles.toJson(vehicle),
+		vehicle: vehicles.forViewer(vehicle, locals.user),
 		revisions: await list(diagram.id),
 		viewing,
 		changes,

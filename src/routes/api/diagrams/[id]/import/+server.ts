@@ -4,7 +4,8 @@ import { requireDiagram } from '$lib/server/access';
 import { validateDocument } from '$lib/server/documents';
 import { apiError, BadRequest, endpoint, readBody } from '$lib/server/http';
 import * as diagrams from '$lib/server/garage/diagrams';
-import { readWireList } from '$lib/harness-io/csv';
+import { findBadLine } from '$lib/server/text-guard';
+import { decodeBytes, readWireList } from '$lib/harness-io/csv';
 import { planImport } from '$lib/harness-io/wire-list';
 import type { RequestHandler } from './$types';
 
@@ -35,7 +36,7 @@ const importBody = z
  */
 export const POST: RequestHandler = endpoint(async ({ locals, params, request }) => {
 	const { diagram } = await requireDiagram(locals, params.id, 'edit');
-	const body = await readBody(request, importBody);
+	const body = await readBody(request, importBody, { fileFields: ['text'] });
 	const current = validateDocument(diagram.document);
 	if (!current.ok) throw new BadRequest('This diagram’s document has problems; fix them before importing into it.', current.errors);
 
@@ -46,6 +47,10 @@ export const POST: RequestHandler = endpoint(async ({ locals, params, request })
 		input = new Uint8Array(bytes);
 	} else input = body.text!;
 
+	// The decoded file, before any row is read into the document: a NUL or a lone surrogate is
+	// named by its row (the database could not keep the document that holds it).
+	const badLine = findBadLine(typeof input === 'string' ? input : decodeBytes(input).text);
+	if (badLine) throw new BadRequest(badLine.message, [{ path: `row ${badLine.row}`, message: badLine.message }]);
 	const table = readWireList(input);
 	const plan = planImport(current.doc, table);
 	const preview = {

@@ -3,6 +3,7 @@ import { requireDiagram } from '$lib/server/access';
 import { BadRequest, endpoint } from '$lib/server/http';
 import * as pages from '$lib/server/manual-pages';
 import { PAGE_LIMIT_TEXT, PAGE_MAX_BYTES, pageProblem, sniffImage } from '$lib/harness-io/images';
+import { findBadField } from '$lib/server/text-guard';
 import type { RequestHandler } from './$types';
 
 /** GET /api/diagrams/:id/pages → { pages } in page order */
@@ -27,6 +28,8 @@ export const POST: RequestHandler = endpoint(async ({ locals, params, request })
 	}
 	const file = form.get('file');
 	if (!(file instanceof File)) throw new BadRequest('Choose an image file of the manual page.', [{ path: 'file', message: 'missing' }]);
+	const badName = findBadField(form);
+	if (badName) throw new BadRequest(badName.message, [badName]);
 	const bytes = new Uint8Array(await file.arrayBuffer());
 	const problem = pageProblem(bytes);
 	if (problem) throw new BadRequest(problem, [{ path: 'file', message: problem }]);
