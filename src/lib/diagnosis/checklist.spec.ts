@@ -14,6 +14,8 @@ import { checklistModel, formatOhms, formatReading, slug, wireColours, type Chec
 import { regionSvg, subDocument } from './region-svg';
 import { basePlan, planDiagnosis, type ReadingJson } from './session';
 import { towardGroup } from './testing/walk';
+import { readingsIf } from '$lib/circuit/what-if';
+import { OPEN_HUNT } from './demo';
 
 const doc = demoHarness();
 const scenario = defaultScenario(doc);
@@ -414,6 +416,27 @@ describe('groups no probe tells apart', () => {
 		expect(last.suspects).toEqual(left.map((id) => byId.get(id)!.label));
 		expect(last.action).toBe(groupAction(left.map((id) => byId.get(id)!)));
 		expect(m.header.standing).toBe(`${left.length} suspects left that no meter reading here can tell apart. ${last.action}`);
+	});
+});
+
+describe('where it stands', () => {
+	it('names the one suspect left (and lists no meter settings once no step is left)', () => {
+		// The demo's planted fault, read as the meter would show it (two decimals), step by step.
+		const base = basePlan(doc, { scenario, marks: gaugesLow, meter: 'entry-dmm' });
+		const readings: ReadingJson[] = [];
+		for (let i = 0; i < 10; i++) {
+			const next = planDiagnosis(doc, { scenario, marks: gaugesLow, meter: 'entry-dmm' }, readings, base).result.plan.steps[0];
+			if (!next) break;
+			const [r] = readingsIf({ doc, scenario, probes: [next.probe], fault: OPEN_HUNT.plantedFault });
+			readings.push(taken(next.probe, Math.round(r.reading * 100) / 100, i));
+		}
+		const ended = input(gaugesLow, readings);
+		expect(ended.result.readings!.remaining.map((r) => r.suspect)).toEqual([OPEN_HUNT.plantedSuspect]);
+		const m = checklistModel(ended);
+		const label = ended.result.suspects.find((x) => x.id === OPEN_HUNT.plantedSuspect)!.label;
+		expect(m.header.standing).toBe(`One suspect left: ${label}.`);
+		expect(m.steps).toEqual([]);
+		expect(m.meter.settings).toEqual([]);
 	});
 });
 
