@@ -78,7 +78,7 @@ test('the demo fault: shared point, a diagnosis planned and followed to the plan
 		probes++;
 	}
 	await expect(page.getByTestId('found')).toHaveAttribute('data-suspect', OPEN_HUNT.plantedSuspect);
-	await expect(page.getByTestId('found')).toContainText('wire W at 6.in');
+	await expect(page.getByTestId('found')).toContainText('wire W (white) at terminal in of 6 (Fuse, ignition accessories)');
 	expect(probes).toBeLessThan(suspectsAtStart);
 	await expect(page.getByTestId('connection')).toHaveAttribute('data-queued', '0');
 	await page.screenshot({ path: '.data/test/diagnosis-found.png', fullPage: true });
@@ -97,7 +97,7 @@ test('the demo fault: shared point, a diagnosis planned and followed to the plan
 	const entry = page.getByTestId('timeline-entry').first();
 	await expect(entry).toHaveAttribute('data-status', 'concluded');
 	await expect(entry).toContainText('Fuse 6 holder clip');
-	await expect(entry).toContainText('wire W at 6.in');
+	await expect(entry).toContainText('wire W (white) at terminal in of 6 (Fuse, ignition accessories)');
 	expect(await entry.locator('a').getAttribute('href')).toBe(new URL(diagnosisUrl).pathname);
 	await page.screenshot({ path: '.data/test/diagnosis-timeline.png', fullPage: true });
 });

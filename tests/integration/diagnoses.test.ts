@@ -135,7 +135,7 @@ describe('diagnoses', () => {
 		});
 		expect(done.status, JSON.stringify(done.body)).toBe(200);
 		expect(done.body.diagnosis.status).toBe('concluded');
-		expect(done.body.diagnosis.foundLabel).toMatch(/wire W at 6\.in/);
+		expect(done.body.diagnosis.foundLabel).toContain('wire W (white) at terminal in of 6 (Fuse, ignition accessories)');
 		expect(done.body.diagnosis.version).toBe(diagnosis.version + 1);
 
 		// Concluded, the page is a record: what was found and replaced and the readings, no work asked.
