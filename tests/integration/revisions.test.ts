@@ -38,6 +38,11 @@ describe('revision history', () => {
 		expect(r.status).toBe(200);
 		expect(r.body.current).toBe(3);
 		expect(r.body.revisions.map((x: { revision: number }) => x.revision)).toEqual([3, 2, 1]);
+		// Each with its one-line summary of what it changed against the one before.
+		const summaries = r.body.revisions.map((x: { summary: string }) => x.summary);
+		expect(summaries[0]).toMatch(/label “second” → “third”/);
+		expect(summaries[1]).toMatch(/label “first” → “second”/);
+		expect(summaries[2]).toBe('First revision');
 	});
 
 	it('shows one old revision with its document', async () => {

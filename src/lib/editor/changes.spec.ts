@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { demoHarness } from '$lib/circuit/demo';
 import { parseDocument, type HarnessDocument } from '$lib/circuit/schema';
-import { documentChanges } from './changes';
+import { changeSummary, documentChanges } from './changes';
 
 function doc(input: unknown): HarnessDocument {
 	const r = parseDocument(input);
@@ -95,3 +95,16 @@ describe('changes between revisions', () => {
 		]);
 	});
 });
+
+describe('changeSummary', () => {
+	const change = (text: string) => ({ kind: 'changed' as const, what: 'wire' as const, id: text, text });
+	it.each([
+		[null, 'First revision'],
+		[{ changes: [change('Wire R (red) recoloured')], moved: { parts: 0, wires: 0 } }, 'Wire R (red) recoloured'],
+		[{ changes: [change('A'), change('B')], moved: { parts: 0, wires: 0 } }, 'A, and 1 more change'],
+		[{ changes: [change('A'), change('B'), change('C')], moved: { parts: 4, wires: 0 } }, 'A, and 2 more changes'],
+		[{ changes: [], moved: { parts: 1, wires: 2 } }, 'Moved 1 part and the bends of 2 wires on the drawing'],
+		[{ changes: [], moved: { parts: 0, wires: 0 } }, 'Saved again, unchanged']
+	])('%j reads "%s"', (c, text) => expect(changeSummary(c)).toBe(text));
+});
+
