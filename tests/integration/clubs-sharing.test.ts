@@ -226,6 +226,9 @@ describe('shares, the club library and read-only links', () => {
 		const reader = await person('Copy Reader');
 		const { diagram } = await vehicleAndDiagram(owner);
 		await form(`/diagrams/${diagram.id}/share?/person`, { email: reader.email, level: 'view' }, owner.cookie);
+		// A viewer is not offered what the server would refuse them (loading a document answers 403).
+		expect(await (await get(`/diagrams/${diagram.id}`, owner.cookie)).text()).toContain('Load a document file');
+		expect(await (await get(`/diagrams/${diagram.id}`, reader.cookie)).text()).not.toContain('Load a document file');
 		// Bring the original to revision 2 so the copy names it.
 		expect((await api('PUT', `/api/diagrams/${diagram.id}`, owner.cookie, { revision: 1, document: diagram.document })).status).toBe(200);
 
