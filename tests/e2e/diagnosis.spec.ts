@@ -35,8 +35,8 @@ test('the demo fault: shared point, a diagnosis planned and followed to the plan
 	test.setTimeout(180_000);
 	await signIn(page);
 	await page.goto('/garage');
-	await page.getByRole('link', { name: /The Kestrel/ }).first().click();
-	await expect(page.getByRole('heading', { name: 'The Kestrel' })).toBeVisible();
+	await page.getByRole('link', { name: /The Ostrimmel/ }).first().click();
+	await expect(page.getByRole('heading', { name: 'The Ostrimmel' })).toBeVisible();
 	await page.getByRole('link', { name: /Complete harness/ }).click();
 	await page.getByRole('link', { name: 'Open the drawing board' }).click();
 	await expect(page.getByTestId('drawing-board')).toBeVisible();
@@ -93,7 +93,7 @@ test('the demo fault: shared point, a diagnosis planned and followed to the plan
 	const diagnosisUrl = page.url();
 
 	// The vehicle's timeline shows it, concluded, newest first.
-	await page.getByRole('link', { name: 'The Kestrel' }).click();
+	await page.getByRole('link', { name: 'The Ostrimmel' }).click();
 	const entry = page.getByTestId('timeline-entry').first();
 	await expect(entry).toHaveAttribute('data-status', 'concluded');
 	await expect(entry).toContainText('Fuse 6 holder clip');

@@ -14,7 +14,7 @@ let vehicleId: string;
 beforeAll(async () => {
 	owner = await signedInAccount('Hunter');
 	stranger = await signedInAccount('Passer-by');
-	const v = await api('POST', '/api/vehicles', owner.cookie, { name: 'Hunt Kestrel', systemVoltage: 12, earthPolarity: 'positive' });
+	const v = await api('POST', '/api/vehicles', owner.cookie, { name: 'Hunt Ostrimmel', systemVoltage: 12, earthPolarity: 'positive' });
 	vehicleId = v.body.vehicle.id;
 	const d = await api('POST', '/api/diagrams', owner.cookie, { vehicleId, title: 'Complete harness', document: demoHarness() });
 	diagramId = d.body.diagram.id;

@@ -6,7 +6,7 @@ import { db } from '../../src/lib/server/db';
 import { diagramRevisions } from '../../src/lib/server/db/schema';
 import { api, baseUrl, signedInAccount, type SignedIn } from './helpers';
 
-const vehicle = { name: 'History Kestrel', make: 'Hartwell & Pryce', model: 'Kestrel Tourer', year: '1962', systemVoltage: 12, earthPolarity: 'positive' };
+const vehicle = { name: 'History Ostrimmel', make: 'Ombrith & Vessick', model: 'Ostrimmel Tourer', year: '1962', systemVoltage: 12, earthPolarity: 'positive' };
 const withLamp = (label: string) => ({
 	schemaVersion: 1,
 	vehicle: { systemVoltage: 12, earth: 'positive' },
