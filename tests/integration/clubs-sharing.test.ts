@@ -150,7 +150,7 @@ describe('shares, the club library and read-only links', () => {
 
 		// Library search by make, model, year and title (case-insensitive, parts of words).
 		const search = async (q: string) => (await (await get(`/clubs/${clubId}?${q}`, member.cookie)).text()).includes('Instrument feeds');
-		expect(await search('make=hartw')).toBe(true);
+		expect(await search('make=ombr')).toBe(true);
 		expect(await search('model=ostrimmel&year=1962')).toBe(true);
 		expect(await search('title=INSTRUMENT')).toBe(true);
 		expect(await search('year=1954')).toBe(false);
