@@ -44,6 +44,19 @@ test('draw two parts, wire them, code the wire, undo, redo and find it saved', a
 	expect(drawn).toEqual({ base: 'rgb(46, 125, 50)', tracer: 'rgb(26, 26, 26)', baseWidth: '6px', tracerWidth: '2px' });
 	// The code is also written in text beside the wire.
 	await expect(wire.locator('.code-label text')).toHaveText('G/B');
+
+	// A code the palette does not know is refused, in the panel and on the canvas; typing the
+	// wire's own code again puts it right, and both messages go.
+	await code.fill('XQ');
+	await code.press('Enter');
+	const refusal = page.locator('#prop-code-error');
+	await expect(refusal).toContainText('unknown colour code "XQ"');
+	await expect(page.getByRole('alert').filter({ hasText: 'unknown colour code' })).toHaveCount(1);
+	await code.fill('G/B');
+	await code.press('Enter');
+	await expect(refusal).toHaveCount(0);
+	await expect(page.getByRole('alert').filter({ hasText: 'unknown colour code' })).toHaveCount(0);
+	await expect(wire).toHaveAttribute('data-code', 'G/B');
 	await page.locator('[data-part-id]').first().scrollIntoViewIfNeeded();
 	await page.screenshot({ path: '.data/test/editor-stripe.png' });
 
