@@ -57,6 +57,21 @@ test('draw two parts, wire them, code the wire, undo, redo and find it saved', a
 	await expect(refusal).toHaveCount(0);
 	await expect(page.getByRole('alert').filter({ hasText: 'unknown colour code' })).toHaveCount(0);
 	await expect(wire).toHaveAttribute('data-code', 'G/B');
+
+	// BK in this single-letter palette is black with a pink tracer; IEC 60757 reads it as black.
+	// The panel says how it was read and offers the other reading, written B here.
+	await code.fill('BK');
+	await code.press('Enter');
+	await expect(wire).toHaveAttribute('data-code', 'B/K');
+	const offer = page.getByTestId('code-other-reading');
+	await expect(offer).toContainText('BK was read as black with pink tracer (B/K)');
+	await expect(offer).toContainText('In IEC 60757 two-letter codes, BK is black.');
+	await offer.getByRole('button', { name: 'Use B (black)' }).click();
+	await expect(wire).toHaveAttribute('data-code', 'B');
+	await expect(offer).toHaveCount(0);
+	await code.fill('G/B');
+	await code.press('Enter');
+	await expect(wire).toHaveAttribute('data-code', 'G/B');
 	await page.locator('[data-part-id]').first().scrollIntoViewIfNeeded();
 	await page.screenshot({ path: '.data/test/editor-stripe.png' });
 
