@@ -21,8 +21,8 @@ export const DEMO = { email: 'demo@loomwright.test', password: 'tracer-stripe-de
 export const ADMIN = { email: 'admin@loomwright.test', password: 'earth-strap-admin', displayName: 'Site admin' };
 export const ORGANISER = { email: 'organiser@loomwright.test', password: 'bonded-earth-organiser', displayName: 'Club Organiser' };
 export const CLUB = {
-	name: 'Kestrel Tourer Register',
-	description: 'Invented demo club for owners of the (equally invented) Hartwell & Pryce Kestrel. Checked harness diagrams are shared here; copy one to your garage and correct it for your car.'
+	name: 'Ostrimmel Tourer Register',
+	description: 'Invented demo club for owners of the (equally invented) Ombrith & Vessick Ostrimmel. Checked harness diagrams are shared here; copy one to your garage and correct it for your car.'
 };
 
 async function account(input: accounts.NewAccount): Promise<User> {
@@ -95,12 +95,12 @@ async function seedClub(organiser: User, demo: User, demoDiagram: Diagram) {
 		])
 		.onConflictDoNothing();
 	const car = await vehicleOf(organiser, 'Register car no. 7', {
-		make: 'Hartwell & Pryce',
-		model: 'Kestrel Tourer',
+		make: 'Ombrith & Vessick',
+		model: 'Ostrimmel Tourer',
 		year: '1963',
 		systemVoltage: 12,
 		earthPolarity: 'positive',
-		notes: 'Invented demo vehicle: the club organiser’s own Kestrel, used to check the register’s harness diagram.'
+		notes: 'Invented demo vehicle: the club organiser’s own Ostrimmel, used to check the register’s harness diagram.'
 	});
 	const checked = await diagramOf(car, organiser.id, 'Register harness, checked wire by wire', demoHarness());
 	await db.insert(diagramShares).values({ diagramId: checked.id, clubId: club.id, level: 'view' }).onConflictDoNothing();
@@ -117,16 +117,16 @@ async function main() {
 	const demo = await account(DEMO);
 	await account({ ...ADMIN, role: 'admin' });
 
-	const kestrel = await vehicleOf(demo, 'The Kestrel', {
-		make: 'Hartwell & Pryce',
-		model: 'Kestrel Tourer',
+	const ostrimmel = await vehicleOf(demo, 'The Ostrimmel', {
+		make: 'Ombrith & Vessick',
+		model: 'Ostrimmel Tourer',
 		year: '1962',
 		systemVoltage: 12,
 		earthPolarity: 'positive',
 		notes:
 			'Invented demo vehicle. Dynamo charging with a two-bobbin regulator; fuel and temperature gauges fed through a voltage stabilizer behind the speedometer.\nSince the winter lay-up the fuel and temperature gauges both read low; the stabilizer is the obvious suspect.'
 	});
-	const diagram = await diagramOf(kestrel, demo.id, 'Complete harness', demoHarness());
+	const diagram = await diagramOf(ostrimmel, demo.id, 'Complete harness', demoHarness());
 	for (const hunt of [...PAST_HUNTS, OPEN_HUNT]) await seedHunt(demo, diagram, hunt);
 	await seedClub(await account(ORGANISER), demo, diagram);
 

@@ -23,7 +23,7 @@ test('a selected wire shows its comment count and opens its comments; a part wit
 	await link.click();
 
 	await expect(page).toHaveURL(new RegExp(`/diagrams/${id}/comments\\?about=wire:w1$`));
-	await expect(page.getByRole('heading', { name: 'On Wire G/B (w1)' })).toBeVisible();
+	await expect(page.getByRole('heading', { name: 'On Wire G/B from 7 Panel switch, terminal 2 to 12 Panel lamp, terminal feed' })).toBeVisible();
 	await expect(page.getByTestId('comment')).toHaveCount(1);
 	await expect(page.getByTestId('comment')).toContainText('behind the glovebox');
 	await expect(page.getByLabel('About')).toHaveValue('wire:w1');

@@ -103,7 +103,7 @@ test('checklist print page: cautions, every step with its expected readings, con
 	const downloading = page.waitForEvent('download');
 	await page.getByRole('link', { name: 'Download PDF' }).click();
 	const download = await downloading;
-	expect(download.suggestedFilename()).toMatch(/^checklist-the-kestrel-\d{4}-\d\d-\d\d-[0-9a-f]{8}\.pdf$/);
+	expect(download.suggestedFilename()).toMatch(/^checklist-the-ostrimmel-\d{4}-\d\d-\d\d-[0-9a-f]{8}\.pdf$/);
 	const bytes = new Uint8Array(await readFile((await download.path())!));
 	// ISO 32000-1 §7.5.2: "%PDF-" first.
 	expect(new TextDecoder().decode(bytes.slice(0, 5))).toBe('%PDF-');

@@ -48,7 +48,7 @@ test('organiser invites, member accepts, copies the shared diagram and corrects 
 	// The organiser, their vehicle and a diagram.
 	await signUp(page, 'Olive Organiser', organiserEmail, 'magneto-bench-evening');
 	const v = await page.request.post('/api/vehicles', {
-		data: { name: 'Club tourer', make: 'Hartwell & Pryce', model: 'Kestrel Tourer', year: '1962', systemVoltage: 12, earthPolarity: 'positive' }
+		data: { name: 'Club tourer', make: 'Ombrith & Vessick', model: 'Ostrimmel Tourer', year: '1962', systemVoltage: 12, earthPolarity: 'positive' }
 	});
 	expect(v.status()).toBe(201);
 	const d = await page.request.post('/api/diagrams', { data: { vehicleId: (await v.json()).vehicle.id, title: 'Panel lamps', document: loom } });
@@ -57,10 +57,10 @@ test('organiser invites, member accepts, copies the shared diagram and corrects 
 
 	// A club, an invitation.
 	await page.getByRole('link', { name: 'Clubs' }).click();
-	await page.getByLabel('Club name').fill('Kestrel Register');
-	await page.getByLabel('Description').fill('Owners of Kestrel tourers, first Thursday of the month.');
+	await page.getByLabel('Club name').fill('Ostrimmel Register');
+	await page.getByLabel('Description').fill('Owners of Ostrimmel tourers, first Thursday of the month.');
 	await page.getByRole('button', { name: 'Start the club' }).click();
-	await expect(page.getByRole('heading', { level: 1, name: 'Kestrel Register' })).toBeVisible();
+	await expect(page.getByRole('heading', { level: 1, name: 'Ostrimmel Register' })).toBeVisible();
 	await page.getByLabel('Their e-mail address').fill(memberEmail);
 	await page.getByRole('button', { name: 'Send invitation' }).click();
 	await expect(page.getByText(`Invitation sent to ${memberEmail}`)).toBeVisible();
@@ -71,21 +71,21 @@ test('organiser invites, member accepts, copies the shared diagram and corrects 
 	const clubShare = page.getByRole('region', { name: 'Share with a club' });
 	await clubShare.getByLabel('Level').selectOption('comment');
 	await clubShare.getByRole('button', { name: 'Share with the club' }).click();
-	await expect(page.getByText('Shared with the club Kestrel Register')).toBeVisible();
+	await expect(page.getByText('Shared with the club Ostrimmel Register')).toBeVisible();
 	await page.screenshot({ path: '.data/test/e2e-share.png', fullPage: true });
 
 	// The invitation is caught; the member follows its link.
-	const invitation = await caughtMail(memberEmail, /Olive Organiser invites you to Kestrel Register/);
+	const invitation = await caughtMail(memberEmail, /Olive Organiser invites you to Ostrimmel Register/);
 	const link = invitation.text.match(/https?:\/\/\S+\/invitations\/[A-Za-z0-9_-]{43}/)![0];
 	const member = await (await browser.newContext()).newPage();
 	await signUp(member, 'Mel Member', memberEmail, 'tracer-lamp-thursday');
 	await member.goto(new URL(link).pathname);
-	await expect(member.getByRole('heading', { level: 1, name: 'Kestrel Register' })).toBeVisible();
+	await expect(member.getByRole('heading', { level: 1, name: 'Ostrimmel Register' })).toBeVisible();
 	await member.getByRole('button', { name: 'Accept and join' }).click();
 	await expect(member.getByRole('heading', { name: /Members \(2\)/ })).toBeVisible();
 
 	// The club library lists it; search by model finds it.
-	await member.getByLabel('Model').fill('kestrel');
+	await member.getByLabel('Model').fill('ostrimmel');
 	await member.getByRole('button', { name: 'Search' }).click();
 	const shared = member.getByRole('list', { name: 'Shared diagrams' });
 	await expect(shared.getByRole('link', { name: 'Panel lamps' })).toBeVisible();
@@ -101,7 +101,7 @@ test('organiser invites, member accepts, copies the shared diagram and corrects 
 
 	// Copy to the member's garage.
 	await member.getByRole('link', { name: 'Copy to my garage' }).click();
-	await member.getByLabel('Name of the new vehicle').fill('My Kestrel');
+	await member.getByLabel('Name of the new vehicle').fill('My Ostrimmel');
 	await member.getByRole('button', { name: 'Make my copy' }).click();
 	await expect(member.getByTestId('based-on')).toHaveText('Based on “Panel lamps” by Olive Organiser, revision 1');
 	const copyId = new URL(member.url()).pathname.split('/').pop()!;
@@ -128,7 +128,7 @@ test('organiser invites, member accepts, copies the shared diagram and corrects 
 	// The member comments on the original's lamp; the owner's notification is caught.
 	await member.goto(`/diagrams/${originalId}/comments`);
 	await member.getByLabel('About').selectOption({ label: '12 Panel lamp' });
-	await member.getByLabel('Comment', { exact: true }).fill('On my Kestrel the feed to the panel lamp is red with a white tracer.');
+	await member.getByLabel('Comment', { exact: true }).fill('On my Ostrimmel the feed to the panel lamp is red with a white tracer.');
 	await member.getByRole('button', { name: 'Post comment' }).click();
 	await expect(member.getByTestId('comment')).toContainText('red with a white tracer');
 	await expect(member.getByTestId('comment')).toContainText('Part 12 Panel lamp');
@@ -143,7 +143,7 @@ test('organiser invites, member accepts, copies the shared diagram and corrects 
 test('the demo restorer is a member of the demo club, whose library holds the organiser’s checked harness', async ({ page }) => {
 	await signIn(page);
 	await page.goto('/clubs');
-	await page.getByRole('link', { name: 'Kestrel Tourer Register' }).click();
+	await page.getByRole('link', { name: 'Ostrimmel Tourer Register' }).click();
 	await expect(page.getByText('You are a member.')).toBeVisible();
 	const shared = page.getByRole('list', { name: 'Shared diagrams' });
 	await expect(shared.getByRole('link', { name: 'Complete harness' })).toBeVisible();
@@ -154,5 +154,5 @@ test('the demo restorer is a member of the demo club, whose library holds the or
 	// The same diagram on the page of what is shared with the demo restorer.
 	await page.goto('/shared');
 	await expect(page.getByRole('link', { name: 'Register harness, checked wire by wire' })).toBeVisible();
-	await expect(page.getByText('through Kestrel Tourer Register')).toBeVisible();
+	await expect(page.getByText('through Ostrimmel Tourer Register')).toBeVisible();
 });

@@ -65,7 +65,7 @@ test('the battery first, a reading no suspect explains kept and taken again, the
 	const diagramId = diagrams.find((d) => d.title === 'Complete harness')!.id;
 
 	await page.goto('/garage');
-	await page.getByRole('link', { name: /The Kestrel/ }).first().click();
+	await page.getByRole('link', { name: /The Ostrimmel/ }).first().click();
 	await page.locator('[data-testid="timeline-entry"][data-status="open"]', { hasText: OPEN_HUNT.title }).getByRole('link').first().click();
 	await page.waitForURL(/\/diagnoses\/[0-9a-f-]{36}$/);
 	const path = new URL(page.url()).pathname;

@@ -35,8 +35,8 @@ test('the demo fault: shared point, a diagnosis planned and followed to the plan
 	test.setTimeout(180_000);
 	await signIn(page);
 	await page.goto('/garage');
-	await page.getByRole('link', { name: /The Kestrel/ }).first().click();
-	await expect(page.getByRole('heading', { name: 'The Kestrel' })).toBeVisible();
+	await page.getByRole('link', { name: /The Ostrimmel/ }).first().click();
+	await expect(page.getByRole('heading', { name: 'The Ostrimmel' })).toBeVisible();
 	await page.getByRole('link', { name: /Complete harness/ }).click();
 	await page.getByRole('link', { name: 'Open the drawing board' }).click();
 	await expect(page.getByTestId('drawing-board')).toBeVisible();
@@ -78,7 +78,7 @@ test('the demo fault: shared point, a diagnosis planned and followed to the plan
 		probes++;
 	}
 	await expect(page.getByTestId('found')).toHaveAttribute('data-suspect', OPEN_HUNT.plantedSuspect);
-	await expect(page.getByTestId('found')).toContainText('wire W at 6.in');
+	await expect(page.getByTestId('found')).toContainText('wire W (white) at terminal in of 6 (Fuse, ignition accessories)');
 	expect(probes).toBeLessThan(suspectsAtStart);
 	await expect(page.getByTestId('connection')).toHaveAttribute('data-queued', '0');
 	await page.screenshot({ path: '.data/test/diagnosis-found.png', fullPage: true });
@@ -93,11 +93,11 @@ test('the demo fault: shared point, a diagnosis planned and followed to the plan
 	const diagnosisUrl = page.url();
 
 	// The vehicle's timeline shows it, concluded, newest first.
-	await page.getByRole('link', { name: 'The Kestrel' }).click();
+	await page.getByRole('link', { name: 'The Ostrimmel' }).click();
 	const entry = page.getByTestId('timeline-entry').first();
 	await expect(entry).toHaveAttribute('data-status', 'concluded');
 	await expect(entry).toContainText('Fuse 6 holder clip');
-	await expect(entry).toContainText('wire W at 6.in');
+	await expect(entry).toContainText('wire W (white) at terminal in of 6 (Fuse, ignition accessories)');
 	expect(await entry.locator('a').getAttribute('href')).toBe(new URL(diagnosisUrl).pathname);
 	await page.screenshot({ path: '.data/test/diagnosis-timeline.png', fullPage: true });
 });

@@ -44,6 +44,34 @@ test('draw two parts, wire them, code the wire, undo, redo and find it saved', a
 	expect(drawn).toEqual({ base: 'rgb(46, 125, 50)', tracer: 'rgb(26, 26, 26)', baseWidth: '6px', tracerWidth: '2px' });
 	// The code is also written in text beside the wire.
 	await expect(wire.locator('.code-label text')).toHaveText('G/B');
+
+	// A code the palette does not know is refused, in the panel and on the canvas; typing the
+	// wire's own code again puts it right, and both messages go.
+	await code.fill('XQ');
+	await code.press('Enter');
+	const refusal = page.locator('#prop-code-error');
+	await expect(refusal).toContainText('unknown colour code "XQ"');
+	await expect(page.getByRole('alert').filter({ hasText: 'unknown colour code' })).toHaveCount(1);
+	await code.fill('G/B');
+	await code.press('Enter');
+	await expect(refusal).toHaveCount(0);
+	await expect(page.getByRole('alert').filter({ hasText: 'unknown colour code' })).toHaveCount(0);
+	await expect(wire).toHaveAttribute('data-code', 'G/B');
+
+	// BK in this single-letter palette is black with a pink tracer; IEC 60757 reads it as black.
+	// The panel says how it was read and offers the other reading, written B here.
+	await code.fill('BK');
+	await code.press('Enter');
+	await expect(wire).toHaveAttribute('data-code', 'B/K');
+	const offer = page.getByTestId('code-other-reading');
+	await expect(offer).toContainText('BK was read as black with pink tracer (B/K)');
+	await expect(offer).toContainText('In IEC 60757 two-letter codes, BK is black.');
+	await offer.getByRole('button', { name: 'Use B (black)' }).click();
+	await expect(wire).toHaveAttribute('data-code', 'B');
+	await expect(offer).toHaveCount(0);
+	await code.fill('G/B');
+	await code.press('Enter');
+	await expect(wire).toHaveAttribute('data-code', 'G/B');
 	await page.locator('[data-part-id]').first().scrollIntoViewIfNeeded();
 	await page.screenshot({ path: '.data/test/editor-stripe.png' });
 

@@ -73,8 +73,8 @@ test('the demo account signs in and finds its invented vehicle', async ({ page }
 	await page.getByLabel('Password').fill('tracer-stripe-demo');
 	await page.getByRole('button', { name: 'Sign in' }).click();
 	await expect(page).toHaveURL(/\/garage$/);
-	await page.getByRole('link', { name: /The Kestrel/ }).click();
-	await expect(page.getByText('1962 Hartwell & Pryce Kestrel Tourer · 12 V · positive earth')).toBeVisible();
+	await page.getByRole('link', { name: /The Ostrimmel/ }).click();
+	await expect(page.getByText('1962 Ombrith & Vessick Ostrimmel Tourer · 12 V · positive earth')).toBeVisible();
 	await page.getByRole('link', { name: /Complete harness/ }).click();
 	await expect(page.getByRole('heading', { level: 1, name: 'Complete harness' })).toBeVisible();
 });

@@ -17,8 +17,12 @@ test('import the demo CSV, lay it out, undo it as one step, export the drawing a
 
 	await page.getByRole('button', { name: 'Import…' }).click();
 	await page.getByTestId('import-file').setInputFiles(fixture('demo-harness.csv'));
-	await expect(page.getByTestId('import-summary')).toContainText(`Would add ${demo.parts.length} parts and ${demo.wires.length} wires`);
+	await expect(page.getByTestId('import-summary')).toContainText(`Would add ${demo.wires.length} wires`);
 	await expect(page.getByTestId('import-errors')).toHaveCount(0);
+	// Every part is new to this empty diagram: listed by key number, and created only when asked.
+	await expect(page.getByTestId('import-new-parts')).toContainText(`${demo.parts.length} key numbers not in this diagram: ${demo.parts.map((p) => p.key).join(', ')}`);
+	await expect(page.getByTestId('import-confirm')).toBeDisabled();
+	await page.getByTestId('import-add-parts').check();
 	const rows = demo.parts.length + demo.wires.length;
 	await page.getByTestId('import-confirm').click();
 	await expect(page.getByTestId('import-dialog')).not.toBeVisible();
@@ -74,6 +78,7 @@ test('a CSV with planted errors lists them by row and column and imports only th
 	await page.screenshot({ path: '.data/test/e2e-results/harness-io-errors.png' });
 	// Nothing has changed yet.
 	expect((await documentOf(page.request, id)).revision).toBe(1);
+	await page.getByTestId('import-add-parts').check();
 	await page.getByRole('button', { name: 'Import the 9 valid rows' }).click();
 	await expect(page.locator('.svelte-flow__node')).toHaveCount(5, { timeout: 30_000 });
 	await waitSaved(page);

@@ -13,7 +13,10 @@ test('a viewed revision lists its changes and shows the changed wire selected', 
 	expect((await documentOf(page.request, id)).revision).toBe(2);
 
 	await page.goto(`/diagrams/${id}/revisions?view=2`);
-	await expect(page.getByTestId('revision-changes').locator('li')).toHaveText(['Wire R/W between 7.2 and 12.feed: code G/B → R/W']);
+	// The history list gives each revision's one-line summary of what it changed.
+	await expect(page.locator('tr[data-revision="2"] [data-testid="revision-summary"]')).toHaveText('Wire R/W (red with white tracer) between terminal 2 of 7 (Panel switch) and terminal feed of 12 (Panel lamp): code G/B → R/W');
+	await expect(page.locator('tr[data-revision="1"] [data-testid="revision-summary"]')).toHaveText('First revision');
+	await expect(page.getByTestId('revision-changes').locator('li')).toHaveText(['Wire R/W (red with white tracer) between terminal 2 of 7 (Panel switch) and terminal feed of 12 (Panel lamp): code G/B → R/W']);
 	const drawing = page.getByTestId('revision-drawing');
 	await expect(drawing.locator('[data-wire-id="w1"]')).toHaveClass(/\bselected\b/);
 	await expect(drawing.locator('[data-wire-id="w2"]')).not.toHaveClass(/\bselected\b/);

@@ -73,13 +73,19 @@ test('trace mode: two gauges show their shared feed, a sentence, feed styling an
 	await expect(tip.getByTestId('reading-lamp')).toContainText('brightness');
 	await page.screenshot({ path: '.data/test/trace-shared.png' });
 
-	// Ignition off in the vehicle state: nothing is fed, the sentence says so.
+	// The ignition switch is drawn in its scenario position: in "ign" (30 to 15 and 75) its blade lies on 75, the way drawn on its right.
+	const blade = page.locator('[data-part-id="ignition"] [data-contact]');
+	await expect(blade).toHaveAttribute('data-contact', 'closed 75');
+
+	// Ignition off in the vehicle state: nothing is fed, the sentence says so, and the blade lifts.
 	await page.getByTestId('scenario-panel').getByRole('button', { name: 'off', exact: true }).click();
+	await expect(blade).toHaveAttribute('data-contact', 'open');
 	await expect(page.locator('[data-testid="shared-sentence"][data-side="feed"]')).toContainText('No feed path at all reaches');
 	await expect(page.locator('[data-wire-id][data-trace~="feed"]')).toHaveCount(0);
 
-	// Back to drawing: the tray and the properties come back, the marks go.
+	// Back to drawing: the tray and the properties come back, the marks go; the switch is drawn at rest.
 	await page.locator('[data-mode="draw"]').click();
 	await expect(page.locator('[data-add-kind]').first()).toBeVisible();
 	await expect(page.locator('[data-wire-id][data-trace]')).toHaveCount(0);
+	await expect(blade).toHaveAttribute('data-contact', 'rest');
 });

@@ -33,7 +33,7 @@ async function planSteps(id: string): Promise<number> {
 beforeAll(async () => {
 	owner = await signedInAccount('Checklist Owner');
 	stranger = await signedInAccount('Checklist Stranger');
-	const v = await api('POST', '/api/vehicles', owner.cookie, { name: 'Checklist Kestrel', make: 'Hartwell & Pryce', model: 'Kestrel Tourer', year: '1962', systemVoltage: 12, earthPolarity: 'positive' });
+	const v = await api('POST', '/api/vehicles', owner.cookie, { name: 'Checklist Ostrimmel', make: 'Ombrith & Vessick', model: 'Ostrimmel Tourer', year: '1962', systemVoltage: 12, earthPolarity: 'positive' });
 	expect(v.status).toBe(201);
 	const d = await api('POST', '/api/diagrams', owner.cookie, { vehicleId: v.body.vehicle.id, title: 'Complete harness', document: demoHarness() });
 	expect(d.status).toBe(201);
@@ -56,7 +56,7 @@ describe('GET /api/diagnoses/[id]/checklist.pdf', () => {
 		expect(res.status).toBe(200);
 		expect(res.headers.get('content-type')).toBe('application/pdf');
 		// RFC 6266: an attachment with a plain ASCII file name naming the vehicle.
-		expect(res.headers.get('content-disposition')).toMatch(/^attachment; filename="checklist-checklist-kestrel-\d{4}-\d\d-\d\d-[0-9a-f]{8}\.pdf"$/);
+		expect(res.headers.get('content-disposition')).toMatch(/^attachment; filename="checklist-checklist-ostrimmel-\d{4}-\d\d-\d\d-[0-9a-f]{8}\.pdf"$/);
 		// ISO 32000-1 §7.5.2: a PDF file begins with "%PDF-".
 		expect(new TextDecoder().decode(bytes.slice(0, 5))).toBe('%PDF-');
 		const text = await pdfText(bytes);

@@ -107,7 +107,7 @@ describe('clubs and invitations', () => {
 		const member = await person('Closing Member');
 		const clubId = await makeClub(org, 'Closing Club');
 		await inviteAndAccept(clubId, org, member);
-		const { diagram } = await vehicleAndDiagram(member, 'Hartwell', 'Kestrel Tourer', '1962', 'Shared before closing');
+		const { diagram } = await vehicleAndDiagram(member, 'Ombrith', 'Ostrimmel Tourer', '1962', 'Shared before closing');
 		expect((await form(`/diagrams/${diagram.id}/share?/club`, { clubId, level: 'view' }, member.cookie)).status).toBe(200);
 		expect((await api('GET', `/api/diagrams/${diagram.id}`, org.cookie)).status).toBe(200);
 
@@ -136,7 +136,7 @@ describe('shares, the club library and read-only links', () => {
 		const outsider = await person('Library Outsider');
 		const clubId = await makeClub(owner, 'Library Club');
 		await inviteAndAccept(clubId, owner, member);
-		const { diagram } = await vehicleAndDiagram(owner, 'Hartwell', 'Kestrel Tourer', '1962', 'Instrument feeds');
+		const { diagram } = await vehicleAndDiagram(owner, 'Ombrith', 'Ostrimmel Tourer', '1962', 'Instrument feeds');
 		await vehicleAndDiagram(owner, 'Corvell', 'Stanway Six', '1954', 'Not shared');
 
 		expect((await api('GET', `/api/diagrams/${diagram.id}`, member.cookie)).status).toBe(404);
@@ -150,8 +150,8 @@ describe('shares, the club library and read-only links', () => {
 
 		// Library search by make, model, year and title (case-insensitive, parts of words).
 		const search = async (q: string) => (await (await get(`/clubs/${clubId}?${q}`, member.cookie)).text()).includes('Instrument feeds');
-		expect(await search('make=hartw')).toBe(true);
-		expect(await search('model=kestrel&year=1962')).toBe(true);
+		expect(await search('make=ombr')).toBe(true);
+		expect(await search('model=ostrimmel&year=1962')).toBe(true);
 		expect(await search('title=INSTRUMENT')).toBe(true);
 		expect(await search('year=1954')).toBe(false);
 		expect(await search('make=Corvell')).toBe(false);
@@ -226,6 +226,9 @@ describe('shares, the club library and read-only links', () => {
 		const reader = await person('Copy Reader');
 		const { diagram } = await vehicleAndDiagram(owner);
 		await form(`/diagrams/${diagram.id}/share?/person`, { email: reader.email, level: 'view' }, owner.cookie);
+		// A viewer is not offered what the server would refuse them (loading a document answers 403).
+		expect(await (await get(`/diagrams/${diagram.id}`, owner.cookie)).text()).toContain('Load a document file');
+		expect(await (await get(`/diagrams/${diagram.id}`, reader.cookie)).text()).not.toContain('Load a document file');
 		// Bring the original to revision 2 so the copy names it.
 		expect((await api('PUT', `/api/diagrams/${diagram.id}`, owner.cookie, { revision: 1, document: diagram.document })).status).toBe(200);
 

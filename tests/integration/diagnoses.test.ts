@@ -4,7 +4,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { demoHarness } from '../../src/lib/circuit/demo';
 import { OPEN_HUNT } from '../../src/lib/diagnosis/demo';
-import { api, signedInAccount, type SignedIn } from './helpers';
+import { api, baseUrl, signedInAccount, type SignedIn } from './helpers';
 
 let owner: SignedIn;
 let stranger: SignedIn;
@@ -14,11 +14,24 @@ let vehicleId: string;
 beforeAll(async () => {
 	owner = await signedInAccount('Hunter');
 	stranger = await signedInAccount('Passer-by');
-	const v = await api('POST', '/api/vehicles', owner.cookie, { name: 'Hunt Kestrel', systemVoltage: 12, earthPolarity: 'positive' });
+	const v = await api('POST', '/api/vehicles', owner.cookie, { name: 'Hunt Ostrimmel', systemVoltage: 12, earthPolarity: 'positive' });
 	vehicleId = v.body.vehicle.id;
 	const d = await api('POST', '/api/diagrams', owner.cookie, { vehicleId, title: 'Complete harness', document: demoHarness() });
 	diagramId = d.body.diagram.id;
 });
+
+/** A page as the server renders it, as text without tags (the words the restorer reads). */
+async function pageText(path: string, cookie: string): Promise<string> {
+	const res = await fetch(baseUrl() + path, { headers: { cookie, accept: 'text/html' } });
+	expect(res.status).toBe(200);
+	const html = await res.text();
+	return html
+		.replace(/<script[\s\S]*?<\/script>/g, '')
+		.replace(/<[^>]+>/g, ' ')
+		.replace(/&#39;|&rsquo;/g, '\u2019')
+		.replace(/&amp;/g, '&')
+		.replace(/\s+/g, ' ');
+}
 
 const reading = (probe: string, value: number | null, extra: Record<string, unknown> = {}) => ({
 	clientId: crypto.randomUUID(),
@@ -87,6 +100,16 @@ describe('diagnoses', () => {
 		let probes = 0;
 		while (state.plan.plan.steps.length && probes < 10) {
 			const probe = state.plan.plan.steps[0].probe;
+			if (probe === 'joint:w-ign-fuse:to') {
+				// A volt drop across a joint: the red lead on the terminal, the black lead on the wire
+				// just behind its crimp, in the same words as the printed checklist (common practice).
+				const page = await pageText(`/diagnoses/${diagnosis.id}`, owner.cookie);
+				expect(page).toContain('Red lead 6 Fuse, ignition accessories, terminal in');
+				expect(page).toContain('Black lead Black lead on wire W, just behind its crimp at terminal in');
+				expect(page).not.toMatch(/Part 6, terminal in/);
+				const checklist = await pageText(`/diagnoses/${diagnosis.id}/checklist`, owner.cookie);
+				expect(checklist).toContain('Black lead Black lead on wire W, just behind its crimp at terminal in');
+			}
 			const predicted = await api('POST', `/api/diagrams/${diagramId}/predict`, owner.cookie, { planProbes: [probe], fault: OPEN_HUNT.plantedFault });
 			expect(predicted.status, JSON.stringify(predicted.body)).toBe(200);
 			const [{ reading: value, unit }] = predicted.body.readings;
@@ -112,8 +135,21 @@ describe('diagnoses', () => {
 		});
 		expect(done.status, JSON.stringify(done.body)).toBe(200);
 		expect(done.body.diagnosis.status).toBe('concluded');
-		expect(done.body.diagnosis.foundLabel).toMatch(/wire W at 6\.in/);
+		expect(done.body.diagnosis.foundLabel).toContain('wire W (white) at terminal in of 6 (Fuse, ignition accessories)');
 		expect(done.body.diagnosis.version).toBe(diagnosis.version + 1);
+
+		// Concluded, the page is a record: what was found and replaced and the readings, no work asked.
+		const page = await pageText(`/diagnoses/${diagnosis.id}`, owner.cookie);
+		expect(page).toContain('Fuse clip cleaned.');
+		expect(page).toMatch(/Replaced: Fuse holder/);
+		expect(page).toContain('Readings taken');
+		expect(page).toContain('The readings pointed to');
+		for (const asked of ['Inspect or repair it', 'conclude below', 'To make sure', 'take one more probe', 'Strike', 'Save reading', 'Take a different probe']) expect(page).not.toContain(asked);
+
+		// The checklist names the one suspect left, and has no empty settings heading (no steps left).
+		const checklist = await pageText(`/diagnoses/${diagnosis.id}/checklist`, owner.cookie);
+		expect(checklist).toContain(`One suspect left: ${done.body.diagnosis.foundLabel}.`);
+		expect(checklist).not.toContain('Settings used');
 	});
 
 	it('strikes a reading: kept in the record, left out of the plan', async () => {

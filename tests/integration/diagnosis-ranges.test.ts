@@ -16,7 +16,7 @@ let diagramId: string;
 beforeAll(async () => {
 	owner = await signedInAccount('Range Setter');
 	stranger = await signedInAccount('Range Passer-by');
-	const v = await api('POST', '/api/vehicles', owner.cookie, { name: 'Ranges Kestrel', systemVoltage: 12, earthPolarity: 'positive' });
+	const v = await api('POST', '/api/vehicles', owner.cookie, { name: 'Ranges Ostrimmel', systemVoltage: 12, earthPolarity: 'positive' });
 	// The demo harness (invented) with its ignition fuse feed marked measured on the drawing.
 	const drawn = demoHarness();
 	const document = { ...drawn, wires: drawn.wires.map((w) => (w.id === 'w-ign-fuse' ? { ...w, lengthMeasured: true } : w)) };

@@ -6,7 +6,7 @@ import { db } from '../../src/lib/server/db';
 import { diagramRevisions, diagrams, vehicles } from '../../src/lib/server/db/schema';
 import { api as call, baseUrl, signedInAccount as account } from './helpers';
 
-const kestrel = { name: 'Test Kestrel', make: 'Hartwell & Pryce', model: 'Kestrel Tourer', year: '1962', systemVoltage: 12, earthPolarity: 'positive' };
+const ostrimmel = { name: 'Test Ostrimmel', make: 'Ombrith & Vessick', model: 'Ostrimmel Tourer', year: '1962', systemVoltage: 12, earthPolarity: 'positive' };
 const oneLamp = {
 	schemaVersion: 1,
 	vehicle: { systemVoltage: 12, earth: 'positive' },
@@ -22,7 +22,7 @@ let diagramId: string;
 beforeAll(async () => {
 	owner = await account('Owner');
 	stranger = await account('Stranger');
-	const v = await call('POST', '/api/vehicles', owner.cookie, kestrel);
+	const v = await call('POST', '/api/vehicles', owner.cookie, ostrimmel);
 	expect(v.status).toBe(201);
 	vehicleId = v.body.vehicle.id;
 	const d = await call('POST', '/api/diagrams', owner.cookie, { vehicleId, title: 'Instruments' });
@@ -72,7 +72,7 @@ describe('another account’s vehicle and diagram', () => {
 			expect(res.body, `${method} ${path}`).toEqual(missing.body);
 		}
 		const [v] = await db.select().from(vehicles).where(eq(vehicles.id, vehicleId));
-		expect(v.name).toBe('Test Kestrel');
+		expect(v.name).toBe('Test Ostrimmel');
 		const [d] = await db.select().from(diagrams).where(eq(diagrams.id, diagramId));
 		expect(d.revision).toBe(1);
 		expect(await db.select().from(diagrams).where(eq(diagrams.title, 'Planted'))).toHaveLength(0);
@@ -92,11 +92,11 @@ describe('another account’s vehicle and diagram', () => {
 			const res = await fetch(baseUrl() + path, { headers: { accept: 'text/html', cookie: stranger.cookie } });
 			expect(res.status, path).toBe(404);
 			const html = await res.text();
-			expect(html).not.toContain('Test Kestrel');
+			expect(html).not.toContain('Test Ostrimmel');
 		}
 		const own = await fetch(`${baseUrl()}/diagrams/${diagramId}`, { headers: { accept: 'text/html', cookie: owner.cookie } });
 		expect(own.status).toBe(200);
-		expect(await own.text()).toContain('Test Kestrel');
+		expect(await own.text()).toContain('Test Ostrimmel');
 	});
 });
 
@@ -160,7 +160,7 @@ describe('saving a diagram', () => {
 
 describe('malformed bodies', () => {
 	it('names the field paths for a bad vehicle', async () => {
-		const res = await call('POST', '/api/vehicles', owner.cookie, { ...kestrel, name: '', systemVoltage: 9 });
+		const res = await call('POST', '/api/vehicles', owner.cookie, { ...ostrimmel, name: '', systemVoltage: 9 });
 		expect(res.status).toBe(400);
 		expect(res.body.error).toBe('Some fields need fixing.');
 		expect(res.body.issues.map((i: { path: string }) => i.path).sort()).toEqual(['name', 'systemVoltage']);
@@ -188,10 +188,10 @@ describe('malformed bodies', () => {
 
 describe('vehicles', () => {
 	it('PATCH changes only the fields sent; DELETE takes the diagrams with it', async () => {
-		const v = (await call('POST', '/api/vehicles', owner.cookie, { ...kestrel, name: 'Spare', notes: 'keep me' })).body.vehicle;
+		const v = (await call('POST', '/api/vehicles', owner.cookie, { ...ostrimmel, name: 'Spare', notes: 'keep me' })).body.vehicle;
 		const patched = await call('PATCH', `/api/vehicles/${v.id}`, owner.cookie, { name: 'Spare chassis' });
 		expect(patched.status).toBe(200);
-		expect(patched.body.vehicle).toMatchObject({ name: 'Spare chassis', notes: 'keep me', make: 'Hartwell & Pryce' });
+		expect(patched.body.vehicle).toMatchObject({ name: 'Spare chassis', notes: 'keep me', make: 'Ombrith & Vessick' });
 		const d = (await call('POST', '/api/diagrams', owner.cookie, { vehicleId: v.id, title: 'Lighting' })).body.diagram;
 		expect((await call('DELETE', `/api/vehicles/${v.id}`, owner.cookie)).status).toBe(204);
 		expect((await call('GET', `/api/diagrams/${d.id}`, owner.cookie)).status).toBe(404);

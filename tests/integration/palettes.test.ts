@@ -103,7 +103,7 @@ describe('replacing and deleting', () => {
 
 	it('deletes a palette; a diagram that copied it in still reads the same codes', async () => {
 		const made = await api('POST', '/api/palettes', owner.cookie, { name: 'Short-lived', colours: iecFour });
-		const v = await api('POST', '/api/vehicles', owner.cookie, { name: 'Palette Kestrel', systemVoltage: 12, earthPolarity: 'negative' });
+		const v = await api('POST', '/api/vehicles', owner.cookie, { name: 'Palette Ostrimmel', systemVoltage: 12, earthPolarity: 'negative' });
 		// A GN/YE wire (green with yellow tracer, IEC 60757) between an invented lamp and earth point.
 		const document = {
 			schemaVersion: 1,

@@ -11,7 +11,7 @@ let diagramId: string;
 beforeAll(async () => {
 	owner = await signedInAccount('Planner');
 	stranger = await signedInAccount('Onlooker');
-	const v = await api('POST', '/api/vehicles', owner.cookie, { name: 'Plan Kestrel', systemVoltage: 12, earthPolarity: 'positive' });
+	const v = await api('POST', '/api/vehicles', owner.cookie, { name: 'Plan Ostrimmel', systemVoltage: 12, earthPolarity: 'positive' });
 	expect(v.status).toBe(201);
 	const d = await api('POST', '/api/diagrams', owner.cookie, { vehicleId: v.body.vehicle.id, title: 'Complete harness', document: demoHarness() });
 	expect(d.status).toBe(201);

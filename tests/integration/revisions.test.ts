@@ -6,7 +6,7 @@ import { db } from '../../src/lib/server/db';
 import { diagramRevisions } from '../../src/lib/server/db/schema';
 import { api, baseUrl, signedInAccount, type SignedIn } from './helpers';
 
-const vehicle = { name: 'History Kestrel', make: 'Hartwell & Pryce', model: 'Kestrel Tourer', year: '1962', systemVoltage: 12, earthPolarity: 'positive' };
+const vehicle = { name: 'History Ostrimmel', make: 'Ombrith & Vessick', model: 'Ostrimmel Tourer', year: '1962', systemVoltage: 12, earthPolarity: 'positive' };
 const withLamp = (label: string) => ({
 	schemaVersion: 1,
 	vehicle: { systemVoltage: 12, earth: 'positive' },
@@ -38,6 +38,11 @@ describe('revision history', () => {
 		expect(r.status).toBe(200);
 		expect(r.body.current).toBe(3);
 		expect(r.body.revisions.map((x: { revision: number }) => x.revision)).toEqual([3, 2, 1]);
+		// Each with its one-line summary of what it changed against the one before.
+		const summaries = r.body.revisions.map((x: { summary: string }) => x.summary);
+		expect(summaries[0]).toMatch(/label “second” → “third”/);
+		expect(summaries[1]).toMatch(/label “first” → “second”/);
+		expect(summaries[2]).toBe('First revision');
 	});
 
 	it('shows one old revision with its document', async () => {

@@ -70,16 +70,17 @@ describe('parseCode', () => {
 		expect(r).toEqual({ ok: true, code: { base, tracer } });
 	});
 
-	it('names the unknown code and the palette', () => {
+	it('names the unknown code and the palette by its name, not its id', () => {
 		const r = parseCode('G/XQ', 'trade-letters');
 		expect(r.ok).toBe(false);
 		if (!r.ok) {
 			expect(r.error).toContain('"XQ"');
-			expect(r.error).toContain('"trade-letters"');
+			expect(r.error).toContain('in the palette Single-letter trade code');
+			expect(r.error).not.toContain('trade-letters');
 		}
 		const r2 = parseCode('GN/B', 'iec-60757');
 		expect(r2.ok).toBe(false);
-		if (!r2.ok) expect(r2.error).toMatch(/"B" in palette "iec-60757"/);
+		if (!r2.ok) expect(r2.error).toMatch(/"B" in the palette IEC 60757 two-letter codes/);
 	});
 	it('refuses three colours and an empty code', () => {
 		expect(parseCode('G/B/R', 'trade-letters').ok).toBe(false);

@@ -63,7 +63,7 @@ export function parseCode(text: string, paletteOrId: string | Palette): CodeResu
 	const palette = resolvePalette(paletteOrId);
 	const codes = index(palette);
 	const trimmed = text.trim();
-	if (!trimmed) return { ok: false, error: `empty colour code (palette "${palette.id}")` };
+	if (!trimmed) return { ok: false, error: `empty colour code (palette: ${palette.name})` };
 	const tokens = trimmed.toUpperCase().split(SEPARATORS).filter(Boolean);
 	const parts: string[] = [];
 	for (const token of tokens) {
@@ -75,7 +75,7 @@ export function parseCode(text: string, paletteOrId: string | Palette): CodeResu
 		if (!split) {
 			return {
 				ok: false,
-				error: `unknown colour code "${token}" in palette "${palette.id}" (known: ${[...codes.keys()].join(' ')})`
+				error: `unknown colour code "${token}" in the palette ${palette.name} (known: ${[...codes.keys()].join(' ')})`
 			};
 		}
 		parts.push(...split);

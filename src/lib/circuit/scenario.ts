@@ -23,7 +23,7 @@ export const ScenarioSchema = z.object({
 export type Scenario = z.output<typeof ScenarioSchema>;
 export type Disconnect = z.output<typeof DisconnectSchema>;
 
-function defaultPositionOf(part: Extract<Part, { kind: 'switch' }>): string {
+export function defaultPositionOf(part: Extract<Part, { kind: 'switch' }>): string {
 	const p = part.params;
 	if (p.defaultPosition) return p.defaultPosition;
 	const names = p.positions.map((x) => x.name);

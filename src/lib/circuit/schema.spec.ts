@@ -81,7 +81,7 @@ describe('parseDocument', () => {
 		const byPath = Object.fromEntries(r.errors.map((e) => [e.path, e.message]));
 		expect(byPath['parts[2].id']).toMatch(/used twice/);
 		expect(byPath['parts[3].key']).toMatch(/already used by parts\[0\]/);
-		expect(byPath['wires[1].code']).toMatch(/"Q" in palette "trade-letters"/);
+		expect(byPath['wires[1].code']).toMatch(/"Q" in the palette Single-letter trade code/);
 		expect(byPath['wires[2].id']).toMatch(/used twice/);
 		expect(byPath['parts[3].params.positions[1].closed[0][1]']).toMatch(/no terminal "7"/);
 	});

@@ -7,10 +7,10 @@ import { defaultScenario } from './scenario';
 import { wireNames } from './wire-names';
 
 const parts = [
-	{ id: 'bat', key: '1' },
-	{ id: 'lamp-a', key: '7' },
-	{ id: 'lamp-b', key: '8' },
-	{ id: 'stud', key: '49' }
+	{ id: 'bat', key: '1', label: 'Battery', kind: 'battery' },
+	{ id: 'lamp-a', key: '7', label: 'Panel lamp', kind: 'lamp' },
+	{ id: 'lamp-b', key: '8', kind: 'lamp' },
+	{ id: 'stud', key: '49', kind: 'earth-point' }
 ];
 const wire = (id: string, code: string, from: [string, string], to: [string, string]) => ({
 	id,
@@ -19,6 +19,7 @@ const wire = (id: string, code: string, from: [string, string], to: [string, str
 	to: { part: to[0], terminal: to[1] }
 });
 const doc = {
+	palette: 'trade-letters',
 	parts,
 	wires: [
 		wire('e1', 'B', ['lamp-a', '31'], ['stud', 'stud']),
@@ -33,20 +34,21 @@ describe('wire names', () => {
 	const names = wireNames(doc);
 	const w = (id: string) => (doc as { wires: { id: string }[] }).wires.find((x) => x.id === id) as never;
 
-	it('name a wire by its code and both ends', () => {
-		expect(names.wire(w('f1'))).toBe('wire R between 1.+ and 7.1');
+	// Colours in words from the single-letter trade code (palettes.ts: B black, R red, N brown).
+	it('name a wire by its code, its colours in words and both ends by key number, name and terminal', () => {
+		expect(names.wire(w('f1'))).toBe('wire R (red) between the + post of 1 (Battery) and terminal 1 of 7 (Panel lamp)');
 	});
 
 	it('say where an end goes only when another wire of its code ends at the same terminal', () => {
-		expect(names.end(w('f1'), 'to')).toBe('wire R at 7.1');
-		expect(names.end(w('e1'), 'to')).toBe('wire B at 49.stud (the one to 7.31)');
-		expect(names.end(w('e2'), 'to')).toBe('wire B at 49.stud (the one to 8.31)');
-		expect(names.end(w('e1'), 'from')).toBe('wire B at 7.31');
+		expect(names.end(w('f1'), 'to')).toBe('wire R (red) at terminal 1 of 7 (Panel lamp)');
+		expect(names.end(w('e1'), 'to')).toBe('wire B (black) at terminal stud of 49 (the one to terminal 31 of 7 Panel lamp)');
+		expect(names.end(w('e2'), 'to')).toBe('wire B (black) at terminal stud of 49 (the one to terminal 31 of 8)');
+		expect(names.end(w('e1'), 'from')).toBe('wire B (black) at terminal 31 of 7 (Panel lamp)');
 	});
 
-	it('fall back to the drawing’s wire id for two wires of one code between the same terminals', () => {
-		expect(names.wire(w('p1'))).toBe('wire N between 1.+ and 8.1 [p1]');
-		expect(names.end(w('p2'), 'from')).toBe('wire N at 1.+ (the one to 8.1) [p2]');
+	it('tell two wires of one code between the same terminals apart by their order in the wire list, never by the drawing\u2019s ids', () => {
+		expect(names.wire(w('p1'))).toBe('wire N (brown) between the + post of 1 (Battery) and terminal 1 of 8 (1 of 2 alike in the wire list)');
+		expect(names.end(w('p2'), 'from')).toBe('wire N (brown) at the + post of 1 (Battery) (the one to terminal 1 of 8) (2 of 2 alike in the wire list)');
 	});
 
 	it('give every wire end of the demo harness a name of its own', () => {
@@ -56,6 +58,10 @@ describe('wire names', () => {
 		expect(new Set(ends).size).toBe(ends.length);
 		const wires = demo.wires.map((x) => all.wire(x));
 		expect(new Set(wires).size).toBe(wires.length);
+		// No "6.in" key-dot-terminal shorthand and no drawing ids (w-…) in what the restorer reads.
+		for (const name of [...ends, ...wires]) expect(name).not.toMatch(/\b\d+\.[\w+-]|\bw-/);
+		// The battery's feed wire, as the restorer says it (positive earth: the − post feeds).
+		expect(ends).toContain('wire N (brown) at the \u2212 post of 1 (Battery 12 V)');
 	});
 });
 

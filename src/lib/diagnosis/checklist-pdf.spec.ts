@@ -15,7 +15,7 @@ const doc = demoHarness();
 function model(marks: PartMark[]): ChecklistModel {
 	const { result } = planDiagnosis(doc, { scenario: defaultScenario(doc), marks, meter: 'entry-dmm' }, []);
 	return checklistModel({
-		vehicle: { name: 'The Kestrel', make: 'Hartwell & Pryce', model: 'Kestrel Tourer', year: '1962' },
+		vehicle: { name: 'The Ostrimmel', make: 'Ombrith & Vessick', model: 'Ostrimmel Tourer', year: '1962' },
 		diagram: { title: 'Complete harness' },
 		diagnosis: { id: '6f1c2a9e-0000-4000-8000-000000000002', title: 'Fuel gauge dead', diagramRevision: 1, marks, status: 'open', createdAt: '2026-11-28T09:30:00.000Z', foundLabel: '', conclusion: '' },
 		document: doc,

@@ -14,6 +14,8 @@ import { checklistModel, formatOhms, formatReading, slug, wireColours, type Chec
 import { regionSvg, subDocument } from './region-svg';
 import { basePlan, planDiagnosis, type ReadingJson } from './session';
 import { towardGroup } from './testing/walk';
+import { readingsIf } from '$lib/circuit/what-if';
+import { OPEN_HUNT } from './demo';
 
 const doc = demoHarness();
 const scenario = defaultScenario(doc);
@@ -22,9 +24,9 @@ const gaugesLow: PartMark[] = [
 	{ part: 'temp-gauge', mark: 'reads-low' }
 ];
 const fuelDead: PartMark[] = [{ part: 'fuel-gauge', mark: 'dead' }];
-const kestrel = { name: 'The Kestrel', make: 'Hartwell & Pryce', model: 'Kestrel Tourer', year: '1962' };
+const ostrimmel = { name: 'The Ostrimmel', make: 'Ombrith & Vessick', model: 'Ostrimmel Tourer', year: '1962' };
 
-function input(marks: PartMark[], readings: ReadingJson[] = [], vehicle = kestrel, planReadings = readings): ChecklistInput {
+function input(marks: PartMark[], readings: ReadingJson[] = [], vehicle = ostrimmel, planReadings = readings): ChecklistInput {
 	const { result } = planDiagnosis(doc, { scenario, marks, meter: 'entry-dmm' }, planReadings);
 	return {
 		vehicle,
@@ -281,7 +283,7 @@ describe('cautions', () => {
 
 	it('warns about airbags on later vehicles, and when the year is not known', () => {
 		for (const year of ['1994', '', 'c. 1988']) {
-			const m = checklistModel({ ...gauges, vehicle: { ...kestrel, year } });
+			const m = checklistModel({ ...gauges, vehicle: { ...ostrimmel, year } });
 			const airbag = m.cautions.find((c) => c.id === 'airbag');
 			expect(airbag, year).toBeTruthy();
 			expect(airbag!.text).toMatch(/Do not probe airbag \(SRS\) connectors/);
@@ -325,7 +327,7 @@ describe('readings already taken', () => {
 	const firstReading = (value: number): ReadingJson => taken('volts:battery:-', value);
 
 	it('fills the box of a step whose probe was read (readings typed before the plan is made again)', () => {
-		const m = checklistModel(input(gaugesLow, [firstReading(-12.31)], kestrel, []));
+		const m = checklistModel(input(gaugesLow, [firstReading(-12.31)], ostrimmel, []));
 		expect(m.steps[0].probe).toBe('volts:battery:-');
 		expect(m.steps[0].taken).toBe('\u221212.31 V');
 		expect(m.steps.slice(1).every((s) => s.taken === null)).toBe(true);
@@ -344,7 +346,7 @@ describe('readings already taken', () => {
 	});
 
 	it('shows a struck reading in the record but not in the box', () => {
-		const m = checklistModel(input(gaugesLow, [{ ...firstReading(-3), struck: true }], kestrel, []));
+		const m = checklistModel(input(gaugesLow, [{ ...firstReading(-3), struck: true }], ostrimmel, []));
 		expect(m.steps[0].taken).toBeNull();
 		expect(m.readings[0].struck).toBe(true);
 	});
@@ -417,16 +419,37 @@ describe('groups no probe tells apart', () => {
 	});
 });
 
+describe('where it stands', () => {
+	it('names the one suspect left (and lists no meter settings once no step is left)', () => {
+		// The demo's planted fault, read as the meter would show it (two decimals), step by step.
+		const base = basePlan(doc, { scenario, marks: gaugesLow, meter: 'entry-dmm' });
+		const readings: ReadingJson[] = [];
+		for (let i = 0; i < 10; i++) {
+			const next = planDiagnosis(doc, { scenario, marks: gaugesLow, meter: 'entry-dmm' }, readings, base).result.plan.steps[0];
+			if (!next) break;
+			const [r] = readingsIf({ doc, scenario, probes: [next.probe], fault: OPEN_HUNT.plantedFault });
+			readings.push(taken(next.probe, Math.round(r.reading * 100) / 100, i));
+		}
+		const ended = input(gaugesLow, readings);
+		expect(ended.result.readings!.remaining.map((r) => r.suspect)).toEqual([OPEN_HUNT.plantedSuspect]);
+		const m = checklistModel(ended);
+		const label = ended.result.suspects.find((x) => x.id === OPEN_HUNT.plantedSuspect)!.label;
+		expect(m.header.standing).toBe(`One suspect left: ${label}.`);
+		expect(m.steps).toEqual([]);
+		expect(m.meter.settings).toEqual([]);
+	});
+});
+
 describe('header and region', () => {
 	it('names the vehicle, diagram revision, dates and marks', () => {
 		const h = gaugesModel.header;
-		expect(h.vehicle).toBe('The Kestrel, Hartwell & Pryce Kestrel Tourer, 1962');
+		expect(h.vehicle).toBe('The Ostrimmel, Ombrith & Vessick Ostrimmel Tourer, 1962');
 		expect(h.diagramTitle).toBe('Complete harness');
 		expect(h.revision).toBe(3);
 		expect(h.started).toBe('2026-11-28');
 		expect(h.printed).toBe('2026-12-02');
 		expect(h.marks.map((m) => `${m.key} ${m.label}: ${m.words}`)).toEqual(['20 Fuel gauge: reads low', '21 Coolant temperature gauge: reads low']);
-		expect(gaugesModel.fileName).toBe('checklist-the-kestrel-2026-11-28-6f1c2a9e.pdf');
+		expect(gaugesModel.fileName).toBe('checklist-the-ostrimmel-2026-11-28-6f1c2a9e.pdf');
 		expect(slug('Ålands Übertourer!')).toBe('alands-ubertourer');
 	});
 

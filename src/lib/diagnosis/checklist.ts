@@ -14,9 +14,9 @@ import type { DiagnoseResult } from '$lib/circuit/diagnose';
 import type { MeterProfile } from '$lib/circuit/meter';
 import { formatRange } from '$lib/circuit/outcomes';
 import type { ChecklistStep } from '$lib/circuit/plan';
-import type { HarnessDocument, Part, Wire } from '$lib/circuit/schema';
+import type { HarnessDocument } from '$lib/circuit/schema';
 import type { Mark } from '$lib/circuit/symptoms';
-import { wireNames, type WireNames } from '$lib/circuit/wire-names';
+import { leadWords } from './leads';
 import { CAUTION_TEXTS, mayHaveAirbags, requiredCautions, type CautionId } from './cautions';
 import { readingsForPlan, type DiagnosisJson, type ReadingJson } from './session';
 import { endingText, formatBand, jobFor } from './view';
@@ -225,24 +225,6 @@ export function wireColours(codes: readonly string[], palette: Palette): WireCol
 	return out;
 }
 
-const partName = (p: Pick<Part, 'key' | 'label'> | undefined, fallback: string) => (p ? `${p.key}${p.label ? ` ${p.label}` : ''}` : fallback);
-
-/** Where the black lead goes, in words: the planner's own sentence when it gave one. */
-function blackLeadOf(probe: Probe, parts: Map<string, Part>, wiresById: Map<string, Wire>, names: WireNames): { text: string; fromConditions: string | null } {
-	const said = probe.conditions.find((c) => /^(Black lead|Lamp clip)\b/.test(c));
-	if (said) return { text: said, fromConditions: said };
-	const to = probe.place.to;
-	if (to === 'earth') return { text: 'Black lead on the battery\u2019s earthed post', fromConditions: null };
-	if (to === 'chassis') return { text: 'Black lead on a clean, bare body point near the part', fromConditions: null };
-	if (to.wire) {
-		const w = wiresById.get(to.wire);
-		const which = w && to.end ? names.whichOne(w, to.end) : '';
-		return { text: `Black lead on wire ${w?.code ?? to.wire}${which}, just behind its crimp at terminal ${to.terminal}`, fromConditions: null };
-	}
-	if (to.part === probe.place.part) return { text: `Black lead on terminal ${to.terminal} of the same part`, fromConditions: null };
-	return { text: `Black lead on ${partName(parts.get(to.part), to.key)}, terminal ${to.terminal}`, fromConditions: null };
-}
-
 function readingText(r: Pick<ReadingJson, 'outcome' | 'value' | 'unit'>, overLimit: number): string {
 	if (r.outcome === 'over-range') return 'over range (OL)';
 	if (r.outcome === 'unreachable') return 'could not reach this point';
@@ -271,7 +253,6 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 	const palette = resolvePalette(doc.palette);
 	const parts = new Map(doc.parts.map((p) => [p.id, p]));
 	const wiresById = new Map(doc.wires.map((w) => [w.id, w]));
-	const names = wireNames(doc);
 	const probes = new Map(result.probes.map((p) => [p.id, p]));
 	const planSteps: ChecklistStep[] = result.plan.steps;
 	const overLimit = meter.ohms.overLimit;
@@ -353,7 +334,7 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 	const steps: PrintStep[] = planSteps.map((s, i) => {
 		const p = stepProbes[i];
 		const part = parts.get(p.place.part);
-		const lead = blackLeadOf(p, parts, wiresById, names);
+		const lead = leadWords(p, doc);
 		const u = used[p.id];
 		const taken = u === undefined ? null : readingText(u === 'OL' ? { outcome: 'over-range', value: null, unit: p.unit } : u === 'unreachable' ? { outcome: 'unreachable', value: null, unit: p.unit } : { outcome: 'value', value: u, unit: p.unit }, overLimit);
 		return {
@@ -366,12 +347,12 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 				key: p.place.key,
 				partLabel: part?.label ?? '',
 				terminal: p.place.terminal,
-				text: `${partName(part, p.place.key)}, terminal ${p.place.terminal}`
+				text: lead.red
 			},
 			wires: wireColours(p.place.wires, palette),
-			blackLead: lead.text,
+			blackLead: lead.black,
 			setting: p.setting,
-			conditions: p.conditions.filter((c) => c !== lead.fromConditions),
+			conditions: p.conditions.filter((c) => c !== lead.blackFromConditions),
 			cautions: stepCautionIds[i].map((id) => cautionNumber.get(id)!).sort((a, b) => a - b),
 			advice: battery && p.id === battery.probe ? battery.advice : null,
 			unit: p.unit,
@@ -420,15 +401,17 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 	const vehicleLine = [v.name, makeModel && makeModel !== v.name ? makeModel : '', v.year].filter(Boolean).join(', ');
 	const remaining = result.readings ? result.readings.remaining.length : result.suspects.length;
 	const finalGroup = result.groups.find((g) => g.final);
+	const labelOf = new Map(result.suspects.map((s) => [s.id, s.label]));
+	const last = result.readings ? result.readings.remaining[0]?.suspect : result.suspects[0]?.id;
+	// The suspect left is named, so the paper says what to look at without the screen.
 	const standing =
 		remaining === 0
 			? 'No suspect explains the marks and readings: check the marks, the scenario and the diagram.'
 			: remaining === 1
-				? 'One suspect left.'
+				? `One suspect left: ${labelOf.get(last ?? '') ?? last}.`
 				: planSteps.length
 					? `${remaining} suspects left; the plan takes about ${result.plan.expectedProbes.toFixed(1)} readings to tell them apart.`
 					: `${remaining} suspects left that no meter reading here can tell apart. ${finalGroup?.action ?? jobFor(result, result.readings?.remaining.map((r) => r.suspect) ?? result.suspects.map((x) => x.id))}`;
-	const labelOf = new Map(result.suspects.map((s) => [s.id, s.label]));
 
 	return {
 		title: `Probe checklist: ${diagnosis.title}`,

@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { demoHarness } from '$lib/circuit/demo';
 import { parseDocument, type HarnessDocument } from '$lib/circuit/schema';
-import { documentChanges } from './changes';
+import { changeSummary, documentChanges } from './changes';
 
 function doc(input: unknown): HarnessDocument {
 	const r = parseDocument(input);
@@ -38,7 +38,7 @@ describe('changes between revisions', () => {
 
 	it('name a recoloured wire by its ends, old code and new', () => {
 		const r = documentChanges(doc(base), edit((d) => (d.wires[0].code = 'R/W')));
-		expect(r.changes).toEqual([{ kind: 'changed', what: 'wire', id: 'w1', text: 'Wire R/W between 1.+ and 7.feed: code R → R/W' }]);
+		expect(r.changes).toEqual([{ kind: 'changed', what: 'wire', id: 'w1', text: 'Wire R/W (red with white tracer) between the + post of 1 (Battery) and terminal feed of 7 (Side lamp): code R → R/W' }]);
 	});
 
 	it('list a part added with its wire, and a part removed with its wire', () => {
@@ -54,8 +54,8 @@ describe('changes between revisions', () => {
 		expect(r.changes.map((c) => c.text)).toEqual([
 			'Part 4 Fuse (fuse) added',
 			'Part 9 (earth-point) removed',
-			'Wire N between 1.+ and 4.in added',
-			'Wire B between 7.earth and 9.stud removed'
+			'Wire N (brown) between the + post of 1 (Battery) and terminal in of 4 (Fuse) added',
+			'Wire B (black) between terminal earth of 7 (Side lamp) and terminal stud of 9 removed'
 		]);
 	});
 
@@ -90,8 +90,21 @@ describe('changes between revisions', () => {
 		expect(r.changes.map((c) => c.text)).toEqual([
 			'Earth negative → positive',
 			'Colour codes trade-letters → iec-60757',
-			'Wire RD between 1.+ and 7.feed: code R → RD',
-			'Wire BK between 7.earth and 1.-: code B → BK; other end 9.stud → 1.-; size 1 mm² → 2 mm²; length 1 m → 1.5 m; length marked measured'
+			'Wire RD (red) between the + post of 1 (Battery) and terminal feed of 7 (Side lamp): code R → RD',
+			'Wire BK (black) between terminal earth of 7 (Side lamp) and the − post of 1 (Battery): code B → BK; other end terminal stud of 9 → the − post of 1 (Battery); size 1 mm² → 2 mm²; length 1 m → 1.5 m; length marked measured'
 		]);
 	});
 });
+
+describe('changeSummary', () => {
+	const change = (text: string) => ({ kind: 'changed' as const, what: 'wire' as const, id: text, text });
+	it.each([
+		[null, 'First revision'],
+		[{ changes: [change('Wire R (red) recoloured')], moved: { parts: 0, wires: 0 } }, 'Wire R (red) recoloured'],
+		[{ changes: [change('A'), change('B')], moved: { parts: 0, wires: 0 } }, 'A, and 1 more change'],
+		[{ changes: [change('A'), change('B'), change('C')], moved: { parts: 4, wires: 0 } }, 'A, and 2 more changes'],
+		[{ changes: [], moved: { parts: 1, wires: 2 } }, 'Moved 1 part and the bends of 2 wires on the drawing'],
+		[{ changes: [], moved: { parts: 0, wires: 0 } }, 'Saved again, unchanged']
+	])('%j reads "%s"', (c, text) => expect(changeSummary(c)).toBe(text));
+});
+

@@ -5,6 +5,7 @@
  * place changed, the vehicle facts and the palette. Moves on the drawing (positions, bends) are
  * counted, not listed: they change nothing electrical.
  */
+import { counted } from '$lib/words';
 import type { HarnessDocument, Part, Wire } from '$lib/circuit/schema';
 import { wireNames } from '$lib/circuit/wire-names';
 import { formatSize } from './sizes';
@@ -99,3 +100,17 @@ export function documentChanges(before: Doc, after: Doc): Changes {
 }
 
 const cap = (s: string) => s[0].toUpperCase() + s.slice(1);
+
+/**
+ * What a revision changed, in one line for the history list: the change itself when there is
+ * one, else the first with a count of the rest; moves on the drawing counted when nothing else
+ * changed. `first` says what the first revision was instead.
+ * @example changeSummary({ changes: [], moved: { parts: 2, wires: 0 } }) // "Moved 2 parts on the drawing"
+ */
+export function changeSummary(c: Changes | null, first = 'First revision'): string {
+	if (!c) return first;
+	const [one, ...rest] = c.changes;
+	if (one) return rest.length ? `${one.text}, and ${counted(rest.length, 'more change')}` : one.text;
+	const moves = [c.moved.parts ? counted(c.moved.parts, 'part') : '', c.moved.wires ? `the bends of ${counted(c.moved.wires, 'wire')}` : ''].filter(Boolean);
+	return moves.length ? `Moved ${moves.join(' and ')} on the drawing` : 'Saved again, unchanged';
+}

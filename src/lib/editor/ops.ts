@@ -6,6 +6,11 @@ import { DEFAULT_TERMINALS, PARAM_SCHEMAS, FIXED_TERMINALS, type PartKind } from
 import { PartSchema, type HarnessDocument, type Part, type Position, type TerminalRef, type Wire } from '$lib/circuit/schema';
 import { formatCode, parseCode, resolvePalette, type Palette } from '$lib/circuit/colours';
 import { crossSectionMm2, type WireSize } from '$lib/circuit/wires';
+import { capitalised, counted, withArticle } from '$lib/words';
+import { KIND_NAMES } from './kinds';
+
+/** "An earth point", "A fuse": the kind as the restorer reads it, with its article. */
+const kindWithArticle = (kind: PartKind) => capitalised(withArticle(KIND_NAMES[kind].toLowerCase()));
 
 export class EditError extends Error {
 	constructor(
@@ -239,7 +244,7 @@ function checkTerminalName(part: Part, name: string, except?: string) {
 /** Adds a named terminal to a switch, connector, splice or generic load. */
 export function addTerminal(doc: HarnessDocument, partId: string, name: string): HarnessDocument {
 	return replacePart(doc, partId, (p) => {
-		if (!userNamed(p.kind)) throw new EditError(`A ${p.kind} has fixed terminals.`, 'terminals');
+		if (!userNamed(p.kind)) throw new EditError(`${kindWithArticle(p.kind)} has fixed terminals.`, 'terminals');
 		const n = checkTerminalName(p, name);
 		return { ...p, terminals: [...p.terminals, n] } as Part;
 	});
@@ -251,7 +256,7 @@ const swap = (t: string, from: string, to: string) => (t === from ? to : t);
 export function renameTerminal(doc: HarnessDocument, partId: string, from: string, to: string): HarnessDocument {
 	const part = doc.parts.find((p) => p.id === partId);
 	if (!part) throw new EditError(`No part with id ${partId}.`);
-	if (!userNamed(part.kind)) throw new EditError(`A ${part.kind} has fixed terminals.`, 'terminals');
+	if (!userNamed(part.kind)) throw new EditError(`${kindWithArticle(part.kind)} has fixed terminals.`, 'terminals');
 	if (!part.terminals.includes(from)) throw new EditError(`No terminal ${from} on this part.`, 'terminals');
 	const n = checkTerminalName(part, to, from);
 	if (n === from) return doc;
@@ -283,9 +288,9 @@ function updateTerminalRefs(part: Part, map: (t: string) => string): Part {
 export function removeTerminal(doc: HarnessDocument, partId: string, name: string): HarnessDocument {
 	const part = doc.parts.find((p) => p.id === partId);
 	if (!part) throw new EditError(`No part with id ${partId}.`);
-	if (!userNamed(part.kind)) throw new EditError(`A ${part.kind} has fixed terminals.`, 'terminals');
+	if (!userNamed(part.kind)) throw new EditError(`${kindWithArticle(part.kind)} has fixed terminals.`, 'terminals');
 	const min = part.kind === 'splice' ? 2 : 1;
-	if (part.terminals.length <= min) throw new EditError(`A ${part.kind} needs at least ${min} terminal${min > 1 ? 's' : ''}.`, 'terminals');
+	if (part.terminals.length <= min) throw new EditError(`${kindWithArticle(part.kind)} needs at least ${counted(min, 'terminal')}.`, 'terminals');
 	let next: Part = { ...part, terminals: part.terminals.filter((t) => t !== name) } as Part;
 	if (next.kind === 'switch') {
 		next = { ...next, params: { ...next.params, positions: next.params.positions.map((pos) => ({ ...pos, closed: pos.closed.filter(([a, b]) => a !== name && b !== name) })) } };

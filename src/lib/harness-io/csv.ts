@@ -64,6 +64,8 @@ export interface WireListTable {
 	/** Whether the wire list had a header row (otherwise the documented order was assumed). */
 	header: boolean;
 	wires: WireRow[];
+	/** Wire rows with a problem in the file (a size that is not a size, …), as far as they could be read: the import checks them for the diagram's problems too, so every problem of a row is named at once. */
+	badWires: WireRow[];
 	parts: PartRow[];
 	issues: CsvIssue[];
 	/** Row numbers of data rows with at least one problem. */
@@ -76,6 +78,31 @@ export interface WireListTable {
 
 // ---------------------------------------------------------------------------------------------
 // Columns: our names first, then aliases people use in their own spreadsheets.
+
+/** How the part table's terminals cell may be separated, in words for the messages and the import dialog. */
+export const TERMINALS_SEPARATED = 'separated by spaces, semicolons, commas or |';
+
+/**
+ * A part table's terminals cell as names: "feed earth", "feed;earth", "feed, earth" and "feed|earth"
+ * all read as feed and earth (people type the separator they are used to; terminal names
+ * themselves never hold one, DIN 72552 numbers included).
+ * @example splitTerminals('30; 15, 50') // ['30', '15', '50']
+ */
+export function splitTerminals(cell: string): string[] {
+	return cell.split(/[\s|;,]+/).filter(Boolean);
+}
+
+/** A short wire list with a part table, as the import dialog shows it: the accepted format by example (invented parts). */
+export const WIRE_LIST_EXAMPLE = [
+	'key,kind,label,location,terminals',
+	'1,battery,Battery,engine-bay,',
+	'5,switch,Ignition switch,dash,30;15;50',
+	'6,fuse,Fuse (ignition),engine-bay,',
+	'',
+	'from part,from terminal,to part,to terminal,colour,size,length,notes',
+	'1,+,5,30,N,2,0.8,',
+	'5,15,6,in,W,1,0.6,behind the dash'
+].join('\n');
 
 export const WIRE_COLUMNS = ['from part', 'from terminal', 'to part', 'to terminal', 'colour', 'size', 'length', 'notes'] as const;
 export const PART_COLUMNS = ['key', 'kind', 'label', 'location', 'terminals', 'notes'] as const;
@@ -495,6 +522,7 @@ export function readWireList(input: string | Uint8Array, options: ReadOptions = 
 		separator,
 		header: sawWireHeader,
 		wires: wires.filter((w) => !bad.has(w.row)),
+		badWires: wires.filter((w) => bad.has(w.row)),
 		parts: parts.filter((p) => !bad.has(p.row)),
 		badPartKeys: parts.filter((p) => bad.has(p.row) && p.key).map((p) => ({ key: p.key, row: p.row })),
 		issues: issues.sort((a, b) => a.row - b.row),
@@ -579,11 +607,11 @@ function readPartRow(row: number, cells: string[], section: Extract<Section, { t
 	}
 	const terminals = get('terminals');
 	if (terminals) {
-		const names = terminals.split(/[\s|]+/).filter(Boolean);
+		const names = splitTerminals(terminals);
 		const seen = new Set<string>();
 		for (const t of names) {
 			if (t.length > TERMINAL_MAX) problems.push({ row, column: col('terminals'), message: `terminal name "${t}" is too long`, expected: `at most ${TERMINAL_MAX} characters per name` });
-			if (seen.has(t)) problems.push({ row, column: col('terminals'), message: `terminal "${t}" is named twice`, expected: 'each terminal name once, separated by spaces or |' });
+			if (seen.has(t)) problems.push({ row, column: col('terminals'), message: `terminal "${t}" is named twice`, expected: `each terminal name once, ${TERMINALS_SEPARATED}` });
 			seen.add(t);
 		}
 		out.terminals = names;

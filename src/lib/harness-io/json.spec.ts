@@ -41,7 +41,7 @@ describe('document file', () => {
 	});
 
 	it('makes plain file names', () => {
-		expect(fileName('Kestrel Tourer — dash loom', '.loom.json')).toBe('kestrel-tourer-dash-loom.loom.json');
+		expect(fileName('Ostrimmel Tourer — dash loom', '.loom.json')).toBe('ostrimmel-tourer-dash-loom.loom.json');
 		expect(fileName('***', '.svg')).toBe('diagram.svg');
 	});
 });

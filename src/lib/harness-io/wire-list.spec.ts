@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { demoHarness } from '../circuit/demo';
 import { emptyDocument, parseDocument, type HarnessDocument } from '../circuit/schema';
-import { readWireList } from './csv';
+import { readWireList, splitTerminals, WIRE_LIST_EXAMPLE } from './csv';
 import { csvCell, harnessSheetCsv, keyTableCsv, planImport, wireListCsv } from './wire-list';
 
 /** What a CSV can carry of a document: parts by key, wires by their ends' keys. */
@@ -16,6 +16,46 @@ function comparable(doc: HarnessDocument) {
 }
 
 const empty = () => emptyDocument({ systemVoltage: 12, earth: 'positive' });
+
+describe('every problem of every row', () => {
+	it('names both problems of a row with an unknown colour and a size that is not a size', () => {
+		const text = 'from part,from terminal,to part,to terminal,colour,size,length,notes\n1,+,2,in,ZZ,abc,1,\n1,+,2,in,R,1,1,\n';
+		const plan = planImport(empty(), readWireList(text));
+		expect(plan.issues.filter((i) => i.row === 2).map((i) => i.column)).toEqual(['size', 'colour']);
+		expect(plan.badRows).toEqual([2]);
+		expect(plan.goodRows).toBe(1);
+		// The held-back row creates nothing: only the good row's parts and wire.
+		expect(plan.summary.addedWires).toBe(1);
+	});
+});
+
+describe('the accepted format', () => {
+	it('reads its own example without a problem, part table included', () => {
+		const table = readWireList(WIRE_LIST_EXAMPLE);
+		expect(table.issues).toEqual([]);
+		expect(table.parts.find((p) => p.key === '5')!.terminals).toEqual(['30', '15', '50']);
+		const plan = planImport(empty(), table);
+		expect(plan.issues).toEqual([]);
+		expect(plan.summary.addedParts).toEqual(['1', '5', '6']);
+		expect(plan.summary.addedWires).toBe(2);
+	});
+
+	it.each([
+		['feed earth', ['feed', 'earth']],
+		['feed;earth', ['feed', 'earth']],
+		['feed, earth', ['feed', 'earth']],
+		['feed|earth', ['feed', 'earth']],
+		// DIN 72552 terminal numbers as a switch's terminals.
+		['30 ; 15 ; 50', ['30', '15', '50']]
+	])('splits the terminals cell %j', (cell, names) => expect(splitTerminals(cell)).toEqual(names));
+
+	it('takes terminals typed with semicolons in a quoted cell of a comma-separated part table', () => {
+		const text = 'key,kind,terminals\n7,connector,"feed;earth"\n\nfrom part,from terminal,to part,to terminal,colour\n7,feed,7,earth,B\n';
+		const plan = planImport(empty(), readWireList(text));
+		expect(plan.issues).toEqual([]);
+		expect(plan.document.parts.find((p) => p.key === '7')!.terminals).toEqual(['feed', 'earth']);
+	});
+});
 
 describe('planImport', () => {
 	it('rebuilds the demo harness’s parts and wires from its own CSV export', () => {

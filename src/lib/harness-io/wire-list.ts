@@ -110,7 +110,9 @@ export function planImport(doc: HarnessDocument, table: WireListTable): ImportPl
 	// Wires: kinds from the kind columns, terminals, colour codes.
 	type Good = { row: WireRow; code: string };
 	const good: Good[] = [];
-	for (const w of table.wires) {
+	// Rows with a problem in the file are checked too (never imported), so each row's every problem is named at once.
+	const heldBack = new Set(table.badRows);
+	for (const w of [...table.wires, ...(table.badWires ?? [])].sort((a, b) => a.row - b.row)) {
 		const before = rowProblems.get(w.row)?.length ?? 0;
 		for (const [key, col] of [[w.fromKey, 'from part'], [w.toKey, 'to part']] as const) {
 			const bad = badPartRows.get(key);
@@ -135,7 +137,7 @@ export function planImport(doc: HarnessDocument, table: WireListTable): ImportPl
 						message: `part ${end.key} is a ${d.kind} ${d.existing ? 'in the diagram' : `(row ${d.kindRow})`}; this row says ${end.kind}`,
 						expected: `${d.kind}, or an empty cell`
 					});
-				} else if (!d.kind && !rowProblems.has(w.row)) {
+				} else if (!d.kind && !rowProblems.has(w.row) && !heldBack.has(w.row)) {
 					d.kind = end.kind;
 					d.kindRow = w.row;
 				}
@@ -154,7 +156,7 @@ export function planImport(doc: HarnessDocument, table: WireListTable): ImportPl
 				});
 			}
 		}
-		if ((rowProblems.get(w.row)?.length ?? 0) === before && !table.badRows.includes(w.row)) {
+		if ((rowProblems.get(w.row)?.length ?? 0) === before && !heldBack.has(w.row)) {
 			good.push({ row: w, code: code.ok ? formatCode(code.code) : w.code });
 		}
 	}

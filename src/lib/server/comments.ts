@@ -62,8 +62,16 @@ export function targetsOf(document: unknown): { parts: { id: string; label: stri
 	const parts = list(doc.parts).flatMap((p) =>
 		typeof p?.id === 'string' ? [{ id: p.id, label: [str(p.key), str(p.label)].filter(Boolean).join(' ') || p.id }] : []
 	);
+	// A wire as the restorer reads it off the harness: its code and the terminals it joins, by the
+	// parts' key numbers and names (the drawing's own ids mean nothing on the bench).
+	const partLabel = new Map(parts.map((p) => [p.id, p.label]));
+	const end = (x: unknown) => {
+		const ref = (x ?? {}) as { part?: unknown; terminal?: unknown };
+		const part = partLabel.get(str(ref.part)) ?? 'a part not in the drawing';
+		return str(ref.terminal) ? `${part}, terminal ${str(ref.terminal)}` : part;
+	};
 	const wires = list(doc.wires).flatMap((w) =>
-		typeof w?.id === 'string' ? [{ id: w.id, label: str(w.code) ? `${str(w.code)} (${w.id})` : w.id }] : []
+		typeof w?.id === 'string' ? [{ id: w.id, label: `${str(w.code) || 'with no code'} from ${end(w.from)} to ${end(w.to)}` }] : []
 	);
 	return { parts, wires };
 }

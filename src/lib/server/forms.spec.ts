@@ -8,7 +8,7 @@ function errorsOf(schema: { safeParse: (v: unknown) => { success: boolean; error
 }
 
 describe('vehicleFields', () => {
-	const good = { name: 'The Kestrel', make: 'Hartwell & Pryce', model: 'Kestrel Tourer', year: '1962', systemVoltage: '12', earthPolarity: 'positive', notes: '' };
+	const good = { name: 'The Ostrimmel', make: 'Ombrith & Vessick', model: 'Ostrimmel Tourer', year: '1962', systemVoltage: '12', earthPolarity: 'positive', notes: '' };
 
 	it('accepts form strings and turns the voltage into a number', () => {
 		const r = vehicleFields.parse(good);

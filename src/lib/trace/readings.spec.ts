@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { demoHarness } from '$lib/circuit/demo';
 import { defaultScenario } from '$lib/circuit/scenario';
-import { brightnessWords, formatVolts, senderOhms, terminalReading } from './readings';
+import { brightnessDetail, brightnessWords, formatVolts, senderOhms, terminalReading } from './readings';
 
 const doc = demoHarness();
 const on = defaultScenario(doc);
@@ -45,7 +45,9 @@ describe('formatting', () => {
 	])('formatVolts(%d) = %s', (v, text) => expect(formatVolts(v)).toBe(text));
 
 	it.each([
-		[1.02, 'full (102 % of full brightness)'],
+		// Above rated power the eye sees full brightness: no percentage above 100 in the words (common practice).
+		[1.09, 'full brightness (bulb above its rated voltage)'],
+		[1.0, 'full (100 % of full brightness)'],
 		[0.7, 'dim (70 % of full brightness)'],
 		[0.05, 'very dim (5 % of full brightness)'],
 		[0.001, 'dark (no glow)']
@@ -57,5 +59,12 @@ describe('formatting', () => {
 		// By hand: 145 + (21 − 145) × 0.6 = 70.6 Ω.
 		expect(senderOhms(sender, 0.6)).toBeCloseTo(70.6, 9);
 		expect(senderOhms(sender, 0)).toBe(145);
+	});
+});
+
+describe('brightnessDetail', () => {
+	it('keeps the number above 100 % for the detail, and nothing below', () => {
+		expect(brightnessDetail(1.09)).toBe('109 % of the bulb\u2019s rated power');
+		expect(brightnessDetail(0.7)).toBeNull();
 	});
 });

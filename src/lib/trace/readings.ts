@@ -15,6 +15,8 @@ export interface TerminalReading {
 	voltsText: string;
 	/** "dim (70 % of full brightness)". */
 	lampText: string;
+	/** Above rated power, the percentage the words leave out: "109 % of the bulb’s rated power". */
+	lampDetail: string | null;
 	/** Where the black lead goes, in words. */
 	blackLead: string;
 }
@@ -25,11 +27,22 @@ export function formatVolts(v: number): string {
 	return `${r === 0 ? '0.00' : r.toFixed(2)} V`;
 }
 
-/** A test lamp's brightness in words; the bands are our own (about a third of rated power looks dim). */
+/**
+ * A test lamp's brightness in words; the bands are our own (about a third of rated power looks
+ * dim). Above its rated power (a charged battery above the bulb's rated voltage) a lamp looks no
+ * brighter than full to the eye, so the words say so; the number stays in brightnessDetail.
+ */
 export function brightnessWords(brightness: number): string {
 	const pct = Math.round(brightness * 100);
+	if (pct > 100) return 'full brightness (bulb above its rated voltage)';
 	const word = brightness >= 0.8 ? 'full' : brightness >= 0.3 ? 'dim' : brightness >= 0.02 ? 'very dim' : 'dark';
 	return word === 'dark' ? 'dark (no glow)' : `${word} (${pct} % of full brightness)`;
+}
+
+/** The number behind the words: "109 % of the bulb's rated power", or null when the words already give it. */
+export function brightnessDetail(brightness: number): string | null {
+	const pct = Math.round(brightness * 100);
+	return pct > 100 ? `${pct} % of the bulb\u2019s rated power` : null;
 }
 
 /** The entry-level DMM (black lead on the battery's earthed post) and its test lamp at one terminal. */
@@ -43,6 +56,7 @@ export function terminalReading(doc: HarnessDocument, scenario: Scenario, ref: T
 		lamp,
 		voltsText: formatVolts(volts.volts),
 		lampText: brightnessWords(lamp.brightness),
+		lampDetail: brightnessDetail(lamp.brightness),
 		blackLead: `black lead on the battery's earthed post (${post}, ${doc.vehicle.earth} earth)`
 	};
 }

@@ -5,17 +5,27 @@ import { and, desc, eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { diagramRevisions, users, type Diagram } from '$lib/server/db/schema';
 import * as diagrams from '$lib/server/garage/diagrams';
+import { parseDocument } from '$lib/circuit/schema';
+import { changeSummary, documentChanges } from '$lib/editor/changes';
 
-export type RevisionListing = { revision: number; author: string | null; createdAt: string };
+/** `summary`: what the revision changed against the one before, in one line (changes.ts). */
+export type RevisionListing = { revision: number; author: string | null; createdAt: string; summary: string };
 
 export async function list(diagramId: string): Promise<RevisionListing[]> {
 	const rows = await db
-		.select({ revision: diagramRevisions.revision, author: users.displayName, createdAt: diagramRevisions.createdAt })
+		.select({ revision: diagramRevisions.revision, author: users.displayName, createdAt: diagramRevisions.createdAt, document: diagramRevisions.document })
 		.from(diagramRevisions)
 		.leftJoin(users, eq(users.id, diagramRevisions.authorId))
 		.where(eq(diagramRevisions.diagramId, diagramId))
 		.orderBy(desc(diagramRevisions.revision));
-	return rows.map((r) => ({ revision: r.revision, author: r.author, createdAt: r.createdAt.toISOString() }));
+	// Newest first: each row's "before" is the next row (the revision numbered one less).
+	const parsed = rows.map((r) => parseDocument(r.document));
+	return rows.map((r, i) => {
+		const after = parsed[i];
+		const before = rows[i + 1]?.revision === r.revision - 1 ? parsed[i + 1] : null;
+		const summary = !before ? changeSummary(null) : before.ok && after.ok ? changeSummary(documentChanges(before.document, after.document)) : 'A document that no longer opens';
+		return { revision: r.revision, author: r.author, createdAt: r.createdAt.toISOString(), summary };
+	});
 }
 
 export async function one(diagramId: string, revision: number) {
