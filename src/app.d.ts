@@ -8,6 +8,11 @@ declare global {
 			linkToken?: string | null;
 			/** Set when an error on this request came from the database being away (answered 503). */
 			databaseDown?: boolean;
+			/** The reader's locale and time zone for writing dates (dates.ts). */
+			dates: import('$lib/dates').Dates;
+		}
+		interface PageData {
+			dates: import('$lib/dates').Dates;
 		}
 		interface Error {
 			message: string;

@@ -4,6 +4,7 @@ import * as session from '$lib/server/auth/session';
 import { close, isDatabaseUnavailable } from '$lib/server/db';
 import { databaseUnavailable } from '$lib/server/http';
 import { closePlanning } from '$lib/server/planning/pool';
+import { localeFrom, TIME_ZONE_COOKIE, timeZoneFrom } from '$lib/dates';
 import { findBadField } from '$lib/server/text-guard';
 
 // adapter-node stops taking requests on SIGTERM/SIGINT, then emits this; the idle database pool
@@ -21,6 +22,7 @@ if (!flags[registered]) {
 
 export const handle: Handle = async ({ event, resolve }) => {
 	const isApi = event.url.pathname.startsWith('/api/');
+	event.locals.dates = { locale: localeFrom(event.request.headers.get('accept-language')), timeZone: timeZoneFrom(event.cookies.get(TIME_ZONE_COOKIE)) };
 	let read: Awaited<ReturnType<typeof session.read>>;
 	try {
 		read = await session.read(event.cookies);

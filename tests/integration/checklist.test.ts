@@ -72,6 +72,19 @@ describe('GET /api/diagnoses/[id]/checklist.pdf', () => {
 		expect(runs).toContain(`Page 1 of ${text.pages}`);
 	});
 
+	it('writes its dates as the reader does: the browser’s language and time zone, the page and the PDF alike', async () => {
+		// CLDR medium dates through Intl: de-DE "dd.MM.y", English (no Accept-Language) "MMM d, y".
+		const german = { cookie: `${owner.cookie}; loom-tz=Europe%2FBerlin`, 'accept-language': 'de-DE,de;q=0.9' };
+		const html = await (await fetch(`${baseUrl()}/diagnoses/${diagnosisId}/checklist`, { headers: { ...german, accept: 'text/html' } })).text();
+		expect(html.replace(/<!--.*?-->/g, '')).toMatch(/started \d\d\.\d\d\.\d{4}; printed \d\d\.\d\d\.\d{4}/);
+		const res = await fetch(`${baseUrl()}/api/diagnoses/${diagnosisId}/checklist.pdf`, { headers: german });
+		const runs = (await pdfText(new Uint8Array(await res.arrayBuffer()))).runs.flat().join(' ');
+		expect(runs).toMatch(/\d\d\.\d\d\.\d{4}/);
+		const english = (await pdfText((await pdf(diagnosisId, owner.cookie)).bytes)).runs.flat().join(' ');
+		expect(english).toMatch(/[A-Z][a-z]{2} \d{1,2}, \d{4}/);
+		expect(english).not.toMatch(/\d\d\.\d\d\.\d{4}/);
+	});
+
 	it('makes Letter pages on ?paper=letter (612 × 792 pt)', async () => {
 		const { res, bytes } = await pdf(diagnosisId, owner.cookie, '?paper=letter');
 		expect(res.status).toBe(200);

@@ -104,6 +104,11 @@ describe('checklistPdf', () => {
 		expect(PAPER.letter).toEqual([612, 792]);
 	});
 
+	it('records when it was printed as the PDF’s creation date (ISO 32000-1 §14.3.3)', async () => {
+		const doc = await PDFDocument.load(gaugesPdf, { updateMetadata: false });
+		expect(doc.getCreationDate()?.toISOString()).toBe('2026-12-02T14:00:00.000Z');
+	});
+
 	it('spells ohms out: the standard fonts cannot encode Ω', () => {
 		const all = deadText.runs.flat().join(' ');
 		expect(dead.steps.some((s) => s.setting.includes('\u03a9'))).toBe(true);

@@ -380,6 +380,6 @@ export async function checklistPdf(model: ChecklistModel, options: PdfOptions = 
 	pdf.setAuthor('Loomwright');
 	pdf.setSubject(winAnsi(`${h.vehicle}; ${h.diagramTitle}, revision ${h.revision}`));
 	pdf.setCreator('Loomwright');
-	pdf.setCreationDate(new Date(`${h.printed}T00:00:00Z`));
+	pdf.setCreationDate(new Date(h.printedAt));
 	return pdf.save();
 }

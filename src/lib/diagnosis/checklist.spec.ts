@@ -446,10 +446,15 @@ describe('header and region', () => {
 		expect(h.vehicle).toBe('The Ostrimmel, Ombrith & Vessick Ostrimmel Tourer, 1962');
 		expect(h.diagramTitle).toBe('Complete harness');
 		expect(h.revision).toBe(3);
-		expect(h.started).toBe('2026-11-28');
-		expect(h.printed).toBe('2026-12-02');
+		// Dates as the reader writes them (CLDR medium date through Intl; English when not given).
+		expect(h.started).toBe('Nov 28, 2026');
+		expect(h.printed).toBe('Dec 2, 2026');
 		expect(h.marks.map((m) => `${m.key} ${m.label}: ${m.words}`)).toEqual(['20 Fuel gauge: reads low', '21 Coolant temperature gauge: reads low']);
 		expect(gaugesModel.fileName).toBe('checklist-the-ostrimmel-2026-11-28-6f1c2a9e.pdf');
+		// A reader in Germany reads German dates (CLDR de-DE medium date "dd.MM.y"); the file name stays ISO 8601.
+		const german = checklistModel({ ...gauges, dates: { locale: 'de-DE', timeZone: 'Europe/Berlin' } });
+		expect([german.header.started, german.header.printed]).toEqual(['28.11.2026', '02.12.2026']);
+		expect(german.fileName).toBe(gaugesModel.fileName);
 		expect(slug('Ålands Übertourer!')).toBe('alands-ubertourer');
 	});
 

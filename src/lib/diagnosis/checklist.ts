@@ -9,6 +9,7 @@
  *
  * Pure: no database, no Svelte, no network.
  */
+import { dayText, type Dates } from '$lib/dates';
 import { parseCode, resolvePalette, type Palette } from '$lib/circuit/colours';
 import type { DiagnoseResult } from '$lib/circuit/diagnose';
 import type { MeterProfile } from '$lib/circuit/meter';
@@ -33,6 +34,8 @@ export interface ChecklistInput {
 	readings: readonly ReadingJson[];
 	/** When the checklist is printed (the header's date). */
 	printedAt: Date;
+	/** The reader's locale and time zone for the header's dates; English and UTC when not given. */
+	dates?: Dates;
 }
 
 export interface Colour {
@@ -147,8 +150,11 @@ export interface ChecklistModel {
 		year: string;
 		diagramTitle: string;
 		revision: number;
+		/** The days as the reader writes them (dates.ts). */
 		started: string;
 		printed: string;
+		/** When printed, ISO 8601 (the PDF's creation date). */
+		printedAt: string;
 		status: 'open' | 'concluded';
 		conclusion: string;
 		marks: { part: string; key: string; label: string; mark: Mark; words: string }[];
@@ -178,7 +184,7 @@ export interface ChecklistModel {
 
 export const MARK_WORDS: Record<Mark, string> = { 'reads-low': 'reads low', 'reads-high': 'reads high', dead: 'dead', erratic: 'erratic', normal: 'normal' };
 
-/** YYYY-MM-DD (ISO 8601): the same on every side of the Atlantic. */
+/** YYYY-MM-DD (ISO 8601), for file names: they sort by date. */
 export function isoDate(d: Date | string): string {
 	return (typeof d === 'string' ? new Date(d) : d).toISOString().slice(0, 10);
 }
@@ -423,8 +429,9 @@ export function checklistModel(input: ChecklistInput): ChecklistModel {
 			year: v.year,
 			diagramTitle: input.diagram.title,
 			revision: diagnosis.diagramRevision,
-			started: isoDate(diagnosis.createdAt),
-			printed: isoDate(input.printedAt),
+			started: dayText(diagnosis.createdAt, input.dates),
+			printed: dayText(input.printedAt, input.dates),
+			printedAt: input.printedAt.toISOString(),
 			status: diagnosis.status,
 			conclusion: diagnosis.status === 'concluded' ? [diagnosis.foundLabel, diagnosis.conclusion].filter(Boolean).join(': ') : '',
 			marks: diagnosis.marks.map((m) => {

@@ -17,7 +17,8 @@ export async function checklistFor(locals: App.Locals, diagnosisId: string, prin
 		result,
 		meter: meterOf(loaded.diagnosis.meter),
 		readings: loaded.readings,
-		printedAt
+		printedAt,
+		dates: locals.dates
 	});
 	return { model, loaded };
 }
