@@ -6,6 +6,7 @@
  * short found and re-insulated; a failed part bench-tested or replaced.
  */
 import type { FaultKind } from './faults';
+import { noun } from '../words';
 
 export type Job = 'remake' | 'repair-wire' | 'insulate' | 'replace' | 'battery';
 
@@ -18,10 +19,10 @@ export function jobOf(kind: FaultKind | 'double'): Job {
 }
 
 const JOB_TEXT: Record<Job, (n: number) => string> = {
-	remake: (n) => (n === 1 ? 'clean and re-make it' : n === 2 ? 'clean and re-make both' : `clean and re-make all ${n}`),
-	'repair-wire': (n) => (n === 1 ? 'repair or replace the wire' : 'repair or replace the wires'),
-	insulate: (n) => (n === 1 ? 'find the chafe and re-insulate it' : 'find the chafe and re-insulate'),
-	replace: (n) => (n === 1 ? 'bench-test or replace it' : 'bench-test or replace each'),
+	remake: (n) => (n === 2 ? 'clean and re-make both' : noun(n, 'clean and re-make it', `clean and re-make all ${n}`)),
+	'repair-wire': (n) => noun(n, 'repair or replace the wire', 'repair or replace the wires'),
+	insulate: (n) => noun(n, 'find the chafe and re-insulate it', 'find the chafe and re-insulate'),
+	replace: (n) => noun(n, 'bench-test or replace it', 'bench-test or replace each'),
 	battery: () => 'charge and test the battery'
 };
 

@@ -192,6 +192,7 @@ describe('tracing a hand-drawn harness', () => {
 		expect(up.shared).toBe(true);
 		expect(up.nearest && pointKey(up.nearest)).toBe('node:fa:out');
 		expect(up.chain.map(pointKey)).toEqual(['node:bat:-', 'wire:main', 'node:sp', 'wire:wa', 'node:fa:in', 'part:fa', 'node:fa:out']);
+		expect(up.message).toBe('shared feed: 7 points from the battery to the nearest common point');
 		const down = sharedEarth(doc, s, ['l1', 'l2']);
 		expect(down.nearest && pointKey(down.nearest)).toBe('node:e2:stud');
 		expect(down.chain.map(pointKey)).toEqual(['node:bat:+', 'wire:strap', 'node:e1:stud', 'part:e1', 'node:chassis', 'part:e2', 'node:e2:stud']);

@@ -19,6 +19,7 @@ import { earthedTerminal, liveTerminal } from './parts';
 import { viewScenario, type Scenario } from './scenario';
 import { relayStates } from './solve';
 import type { HarnessDocument, Part, TerminalRef } from './schema';
+import { counted } from '../words';
 
 export type TracePoint =
 	| { type: 'node'; node: string; terminals: TerminalRef[] }
@@ -290,7 +291,7 @@ export function prepareTrace(doc: HarnessDocument, scenario: Scenario, options: 
 		const isShared = lca !== tr.root;
 		const keyOf = (id: string) => doc.parts.find((p) => p.id === id)?.key ?? id;
 		let message = isShared
-			? `shared ${name}: ${chain.length} point(s) from the battery to the nearest common point`
+			? `shared ${name}: ${counted(chain.length, 'point')} from the battery to the nearest common point`
 			: `the selected parts share no ${name} point but the battery terminal itself`;
 		if (unreached.length) message += `; no ${name} path at all to ${unreached.map(keyOf).join(', ')}`;
 		return { side, shared: isShared, nearest: point(lca), chain, unreached, message };

@@ -13,6 +13,7 @@
  */
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage, type RGB } from 'pdf-lib';
 import type { ChecklistModel, PrintStep, WireColour } from './checklist';
+import { noun } from '../words';
 
 export type Paper = 'a4' | 'letter';
 /** Page sizes in PDF points (1/72 in): A4 210 × 297 mm (ISO 216), Letter 8.5 × 11 in (ANSI/ASME Y14.1). */
@@ -334,7 +335,7 @@ export async function checklistPdf(model: ChecklistModel, options: PdfOptions = 
 		down(row(sheet, 'Profile', model.meter.label, dry));
 		down(row(sheet, 'Volts input', `${model.meter.inputResistance} (DC volts range)`, dry));
 		down(row(sheet, 'Test lamp', model.meter.lampWatts, dry));
-		for (const st of model.meter.settings) down(row(sheet, 'Setting', `${st.setting} (${st.steps.length > 1 ? 'steps' : 'step'} ${st.steps.join(', ')})`, dry));
+		for (const st of model.meter.settings) down(row(sheet, 'Setting', `${st.setting} (${noun(st.steps.length, 'step')} ${st.steps.join(', ')})`, dry));
 		down(8);
 		return top - sheet.y;
 	});

@@ -8,6 +8,7 @@ import { senderResistance, type PartKind } from '../circuit/parts';
 import type { Scenario } from '../circuit/scenario';
 import { formatPath, type HarnessDocument, type Part } from '../circuit/schema';
 import { batteryRange, checkUncertainty, measuredWires, REST_EMF_PER_12, RUNNING_EMF_PER_12, UncertaintySchema, uncertaintyOf, type Uncertainty } from '../circuit/uncertainty';
+import { counted, noun } from '../words';
 
 /** Where each default comes from, in the restorer's words (TRADE.md). */
 export const SOURCES = {
@@ -102,7 +103,7 @@ export function rangesInForce({ doc, scenario, uncertainty, battery }: { doc: Ha
 			source: u.wireLength === defaults.wireLength ? SOURCES.wires : SOURCES.changed,
 			changed: u.wireLength !== defaults.wireLength,
 			note: measured
-				? `${measured} of ${doc.wires.length} wire${doc.wires.length === 1 ? '' : 's'} measured: held at ${measured === 1 ? 'its' : 'their'} length.`
+				? `${measured} of ${counted(doc.wires.length, 'wire')} measured: held at ${noun(measured, 'its', 'their')} length.`
 				: `None of the ${doc.wires.length} wires is marked measured. Mark a length measured on the drawing board; diagnoses started after that use it.`
 		});
 	}

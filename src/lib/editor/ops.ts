@@ -516,7 +516,7 @@ export function changePalette(doc: HarnessDocument, palette: string | Palette): 
 	const to = resolvePalette(palette);
 	const { wires, unmapped } = recodeFor(doc, palette);
 	if (unmapped.length) {
-		const list = unmapped.map((u) => `${u.code} (${u.wires.length} wire${u.wires.length === 1 ? '' : 's'})`).join(', ');
+		const list = unmapped.map((u) => `${u.code} (${counted(u.wires.length, 'wire')})`).join(', ');
 		throw new EditError(`The palette “${to.name}” has no colour for ${list}. Add those colours to it, or recode those wires first.`, 'palette');
 	}
 	return { ...doc, palette: typeof palette === 'string' ? palette : structuredClone(palette), wires };

@@ -5,6 +5,7 @@
  * (side and tail lamps). A suggestion is only offered, never applied: the person is asked.
  */
 import type { Part } from '$lib/circuit/schema';
+import { noun } from '$lib/words';
 
 export type SwitchRole = 'ignition' | 'lighting' | 'other';
 
@@ -23,7 +24,7 @@ function terminalsSaying(terminals: readonly string[], meaning: Record<string, s
 	const found = terminals.filter((t) => t in meaning);
 	if (!found.length) return null;
 	const list = found.length === 1 ? found[0] : `${found.slice(0, -1).join(', ')} and ${found[found.length - 1]}`;
-	return `terminal${found.length === 1 ? '' : 's'} ${list} (DIN 72552: ${found.map((t) => meaning[t]).join(', ')})`;
+	return `${noun(found.length, 'terminal')} ${list} (DIN 72552: ${found.map((t) => meaning[t]).join(', ')})`;
 }
 
 /**

@@ -6,6 +6,8 @@
 // could use to shut a restorer out. Each key has a policy: the first few failures are free, then
 // every further failure doubles the wait up to a ceiling, and a hard hourly cap sits behind it.
 
+import { counted } from '$lib/words';
+
 export interface ThrottlePolicy {
 	/** Failures allowed in a window before any wait. */
 	freeFailures: number;
@@ -91,7 +93,7 @@ export function decide(state: ThrottleState | null, now: Date, policy: ThrottleP
 
 /** "about 2 minutes" — how long to wait, in words for the sign-in form. */
 export function describeWait(seconds: number): string {
-	if (seconds < 60) return `${seconds} second${seconds === 1 ? '' : 's'}`;
+	if (seconds < 60) return counted(seconds, 'second');
 	const minutes = Math.ceil(seconds / 60);
-	return `about ${minutes} minute${minutes === 1 ? '' : 's'}`;
+	return `about ${counted(minutes, 'minute')}`;
 }

@@ -8,6 +8,7 @@ import { db } from '$lib/server/db';
 import { users } from '$lib/server/db/schema';
 import { formObject } from '$lib/server/forms';
 import type { Actions, PageServerLoad } from './$types';
+import { counted } from '$lib/words';
 
 // The signed-in person's own account: password, sessions, and which e-mails they want.
 export const load: PageServerLoad = async ({ locals }) => {
@@ -34,7 +35,7 @@ export const actions: Actions = {
 		const ended = values.keepOthers !== 'on' && locals.session ? await session.endOthers(user.id, locals.session.id) : 0;
 		return {
 			action: 'password',
-			message: ended ? `Password changed; ${ended} other session${ended === 1 ? '' : 's'} ended.` : 'Password changed.'
+			message: ended ? `Password changed; ${counted(ended, 'other session')} ended.` : 'Password changed.'
 		};
 	},
 	endSession: async ({ locals, request }) => {
@@ -47,7 +48,7 @@ export const actions: Actions = {
 	endOthers: async ({ locals }) => {
 		const user = requireUser(locals);
 		const n = locals.session ? await session.endOthers(user.id, locals.session.id) : 0;
-		return { action: 'sessions', message: n ? `${n} other session${n === 1 ? '' : 's'} ended.` : 'There were no other sessions.' };
+		return { action: 'sessions', message: n ? `${counted(n, 'other session')} ended.` : 'There were no other sessions.' };
 	},
 	confirm: async ({ locals }) => {
 		const user = requireUser(locals);

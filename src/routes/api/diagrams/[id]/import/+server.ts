@@ -8,6 +8,7 @@ import { findBadLine } from '$lib/server/text-guard';
 import { decodeBytes, readWireList } from '$lib/harness-io/csv';
 import { planImport } from '$lib/harness-io/wire-list';
 import type { RequestHandler } from './$types';
+import { counted } from '$lib/words';
 
 /** A wire list of 10 000 rows is well under this; anything bigger is not a wire list. */
 const MAX_BYTES = 2 * 1024 * 1024;
@@ -67,7 +68,7 @@ export const POST: RequestHandler = endpoint(async ({ locals, params, request })
 
 	if (plan.issues.length && !body.validOnly) {
 		return apiError(400, {
-			error: `The file has ${plan.issues.length} problem${plan.issues.length === 1 ? '' : 's'} in ${plan.badRows.length} row${plan.badRows.length === 1 ? '' : 's'}; nothing was imported. Fix them, or import the good rows only.`,
+			error: `The file has ${counted(plan.issues.length, 'problem')} in ${counted(plan.badRows.length, 'row')}; nothing was imported. Fix them, or import the good rows only.`,
 			issues: plan.issues.map((i) => ({ path: `row ${i.row}${i.column ? `, ${i.column}` : ''}`, message: `${i.message} (expected ${i.expected})` }))
 		});
 	}
