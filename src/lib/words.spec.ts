@@ -3,6 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { demoHarness } from '$lib/circuit/demo';
 import { addTerminal, EditError } from '$lib/editor/ops';
+import { parseDocument } from '$lib/circuit/schema';
 import { capitalised, counted, noun, withArticle } from './words';
 
 describe('counted', () => {
@@ -35,5 +36,13 @@ describe('withArticle', () => {
 		const doc = demoHarness();
 		const earth = doc.parts.find((p) => p.kind === 'earth-point')!;
 		expect(() => addTerminal(doc, earth.id, 'x')).toThrow(new EditError('An earth point has fixed terminals.', 'terminals'));
+	});
+
+	it('reads "an earth-point has the terminals stud" when a document renames them, not "a earth-point"', () => {
+		const doc = demoHarness() as unknown as { parts: { kind: string; terminals: string[] }[] };
+		doc.parts.find((p) => p.kind === 'earth-point')!.terminals = ['bolt'];
+		const r = parseDocument(doc);
+		expect(r.ok).toBe(false);
+		expect(!r.ok && r.errors.map((e) => e.message)).toContain('an earth-point has the terminals stud');
 	});
 });

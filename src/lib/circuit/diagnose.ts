@@ -26,6 +26,7 @@ import { explain, markMiss, observedElement, quantity, seenOn, type Judged, type
 import { batteryRange, CHARGE_BELOW_PER_12, factorWorlds, uncertaintyOf, withBattery, type UncertaintyInput } from './uncertainty';
 import { planningView, type ReadingRange } from './outcomes';
 import { groupAction } from './groups';
+import { withArticle } from '../words';
 
 /** A double fault's prior relative to the product of its two single priors (invented: two faults at once are rare). */
 export const DOUBLE_FAULT_FACTOR = 0.05;
@@ -281,7 +282,7 @@ export function diagnose(input: DiagnoseInput): DiagnoseResult {
 		const p = parts.get(m.part);
 		if (!p) return issues.push({ path: `marks[${i}].part`, message: `no part "${m.part}" in this diagram` });
 		const o = observedElement(c, p);
-		if (!o) return issues.push({ path: `marks[${i}].part`, message: `part ${p.key} is a ${p.kind}: mark the lamps, gauges, motors or other parts it serves instead` });
+		if (!o) return issues.push({ path: `marks[${i}].part`, message: `part ${p.key} is ${withArticle(p.kind)}: mark the lamps, gauges, motors or other parts it serves instead` });
 		observed.push(o);
 	});
 	if (!input.marks.length) issues.push({ path: 'marks', message: 'mark at least one part (reads-low, reads-high, dead, erratic or normal)' });

@@ -12,6 +12,7 @@ import {
 	type VehicleFacts
 } from './parts';
 import { PaletteSchema, parseCode, resolvePalette, BUILT_IN_PALETTES } from './colours';
+import { withArticle } from '../words';
 
 export const SCHEMA_VERSION = 1;
 
@@ -34,7 +35,7 @@ function partBranch<K extends PartKind, S extends z.ZodObject>(kind: K, paramsSc
 				.array(TerminalName)
 				.default([...fixed])
 				.refine((t) => t.length === fixed.length && t.every((n, i) => n === fixed[i]), {
-					message: `a ${kind} has the terminals ${fixed.join(', ')}`
+					message: `${withArticle(kind)} has the terminals ${fixed.join(', ')}`
 				})
 		: z.array(TerminalName).min(kind === 'splice' ? 2 : 1).default([...DEFAULT_TERMINALS[kind]]);
 	return z.object({

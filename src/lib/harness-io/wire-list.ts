@@ -12,6 +12,7 @@ import { FIXED_TERMINALS, type PartKind } from '../circuit/parts';
 import { formatCode, parseCode, resolvePalette, type Palette } from '../circuit/colours';
 import { PartSchema, parseDocument, type HarnessDocument, type Part, type Wire } from '../circuit/schema';
 import { KIND_EXPECTED, type CsvIssue, type PartRow, type WireListTable, type WireRow } from './csv';
+import { withArticle } from '../words';
 
 export interface ImportSummary {
 	/** Key numbers of the parts the import creates. */
@@ -134,7 +135,7 @@ export function planImport(doc: HarnessDocument, table: WireListTable): ImportPl
 					flag({
 						row: w.row,
 						column: `${end.side} kind`,
-						message: `part ${end.key} is a ${d.kind} ${d.existing ? 'in the diagram' : `(row ${d.kindRow})`}; this row says ${end.kind}`,
+						message: `part ${end.key} is ${withArticle(d.kind)} ${d.existing ? 'in the diagram' : `(row ${d.kindRow})`}; this row says ${end.kind}`,
 						expected: `${d.kind}, or an empty cell`
 					});
 				} else if (!d.kind && !rowProblems.has(w.row) && !heldBack.has(w.row)) {
@@ -151,7 +152,7 @@ export function planImport(doc: HarnessDocument, table: WireListTable): ImportPl
 				flag({
 					row: w.row,
 					column: `${end.side} terminal`,
-					message: `part ${end.key} is a ${d.kind}, which has no terminal "${end.terminal}"`,
+					message: `part ${end.key} is ${withArticle(d.kind!)}, which has no terminal "${end.terminal}"`,
 					expected: `one of ${fixed.join(', ')}`
 				});
 			}
@@ -275,7 +276,7 @@ function applyPartRow(drafts: Map<string, Draft>, row: PartRow, flag: (i: CsvIss
 	d.partRow = row.row;
 	if (row.kind) {
 		if (d.existing && d.existing.kind !== row.kind) {
-			flag({ row: row.row, column: 'kind', message: `part ${row.key} is a ${d.existing.kind} in the diagram; the table says ${row.kind}`, expected: `${d.existing.kind} (change a part’s kind on the drawing board)` });
+			flag({ row: row.row, column: 'kind', message: `part ${row.key} is ${withArticle(d.existing.kind)} in the diagram; the table says ${row.kind}`, expected: `${d.existing.kind} (change a part’s kind on the drawing board)` });
 			return false;
 		}
 		d.kind = row.kind;
@@ -285,7 +286,7 @@ function applyPartRow(drafts: Map<string, Draft>, row: PartRow, flag: (i: CsvIss
 		const kind = d.kind;
 		const fixed = kind ? FIXED_TERMINALS[kind] : null;
 		if (fixed && (row.terminals.length !== fixed.length || row.terminals.some((t) => !fixed.includes(t)))) {
-			flag({ row: row.row, column: 'terminals', message: `a ${kind} has the terminals ${fixed.join(' ')}; the table lists ${row.terminals.join(' ')}`, expected: `${fixed.join(' ')}, or an empty cell` });
+			flag({ row: row.row, column: 'terminals', message: `${withArticle(kind!)} has the terminals ${fixed.join(' ')}; the table lists ${row.terminals.join(' ')}`, expected: `${fixed.join(' ')}, or an empty cell` });
 			return false;
 		}
 		if (!fixed) for (const t of row.terminals) if (!d.terminals.includes(t)) d.terminals.push(t);
