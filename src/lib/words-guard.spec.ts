@@ -13,7 +13,8 @@ const PATTERNS: { name: string; re: RegExp }[] = [
 	{ name: "an 's' suffix chosen by hand", re: /\?\s*(['"`])\1\s*:\s*(['"`])s\2/ },
 	{ name: "an 's' suffix chosen by hand", re: /\?\s*(['"`])s\1\s*:\s*(['"`])\2/ },
 	{ name: 'a "(s)" plural', re: /[a-z]\(s\)\s+[a-z]/i },
-	{ name: 'a one-or-many choice by hand', re: /[!=]==\s*1\s*\?/ }
+	{ name: 'a one-or-many choice by hand', re: /[!=]==\s*1\s*\?/ },
+	{ name: 'a one-or-many choice by hand', re: />\s*1\s*\?\s*(['"`])(\w+)s\1\s*:\s*(['"`])\2\3/ }
 ];
 
 /**
@@ -59,6 +60,7 @@ describe('no hand-written plurals', () => {
 			"const b = `${n} step${n !== 1 ? 's' : ''}`;",
 			'const c = `${n} point(s) from the battery`;',
 			"const d = n === 1 ? 'this code' : 'these codes';",
+			"const f = `${n > 1 ? 'steps' : 'step'} ${list}`;",
 			'// every d(s) was solved exactly',
 			"const e = counted(n, 'wire');"
 		].join('\n');
@@ -66,7 +68,8 @@ describe('no hand-written plurals', () => {
 			'lib/example.ts:1',
 			'lib/example.ts:2',
 			'lib/example.ts:3',
-			'lib/example.ts:4'
+			'lib/example.ts:4',
+			'lib/example.ts:5'
 		]);
 	});
 
