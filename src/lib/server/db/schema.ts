@@ -390,6 +390,13 @@ export type Vehicle = typeof vehicles.$inferSelect;
 export type Diagram = typeof diagrams.$inferSelect;
 export type DiagramRevision = typeof diagramRevisions.$inferSelect;
 export type ManualPage = typeof manualPages.$inferSelect;
+
+// Stored files whose row is gone or never came to be (a failed or timed-out upload, a delete the
+// store did not answer): recorded so a clean-up removes them once the store answers again.
+export const storageOrphans = pgTable('storage_orphans', {
+	storageKey: text('storage_key').primaryKey(),
+	recordedAt: createdAt()
+});
 export type Palette = typeof palettes.$inferSelect;
 export type Diagnosis = typeof diagnoses.$inferSelect;
 export type DiagnosisReading = typeof diagnosisReadings.$inferSelect;
