@@ -138,6 +138,15 @@ up() {
 	start_cluster
 }
 
+# The installed binaries and an existing cluster folder, without installing or creating anything.
+found_cluster() {
+	bin=$(find_bin)
+	[ -n "$bin" ] || return 1
+	setup_runner
+	[ -L "$data" ] && data=$(readlink -f "$data")
+	[ -d "$data" ]
+}
+
 cmd=${1:-start}
 case "$cmd" in
 start)
@@ -154,20 +163,12 @@ fresh)
 	url "$name"
 	;;
 stop)
-	bin=$(find_bin)
-	[ -n "$bin" ] || exit 0
-	setup_runner
-	[ -L "$data" ] && data=$(readlink -f "$data")
-	[ -d "$data" ] || exit 0
+	found_cluster || exit 0
 	as_server "$bin/pg_ctl" -D "$data" -m fast stop >/dev/null 2>&1 || true
 	;;
 status)
 	# Exit 0 when the cluster is running.
-	bin=$(find_bin)
-	[ -n "$bin" ] || exit 1
-	setup_runner
-	[ -L "$data" ] && data=$(readlink -f "$data")
-	[ -d "$data" ] || exit 1
+	found_cluster || exit 1
 	as_server "$bin/pg_ctl" -D "$data" status >/dev/null 2>&1
 	;;
 url)

@@ -65,7 +65,7 @@ export async function add(input: { diagramId: string; ownerId: string; bytes: Ui
 		void sweepOrphans();
 		return row;
 	} catch (e) {
-		await forget([key]);
+		await removeFiles([key]);
 		throw e;
 	}
 }
@@ -98,13 +98,8 @@ export async function storageKeysOf(diagramIds: readonly string[]): Promise<stri
 	return rows.map((r) => r.key);
 }
 
-/** Removes files after their rows are gone; what the store does not take now is recorded, never undoes the delete. */
+/** Removes files no row points to (any more); those the store does not take now are recorded as orphans, never undoing a delete. */
 export async function removeFiles(keys: readonly string[]): Promise<void> {
-	await forget(keys);
-}
-
-/** Removes files no row points to; those the store does not take now are recorded as orphans. */
-async function forget(keys: readonly string[]): Promise<void> {
 	let away = false;
 	for (const key of keys) {
 		// Once the store has not answered, the rest are recorded without waiting on it again.

@@ -13,13 +13,7 @@ export type SharedVehicleJson = ReturnType<typeof sharedJson>;
 /** The whole vehicle, notes included: for its owner only (the garage, the owner's API). */
 export function toJson(v: Vehicle) {
 	return {
-		id: v.id,
-		name: v.name,
-		make: v.make,
-		model: v.model,
-		year: v.year,
-		systemVoltage: v.systemVoltage,
-		earthPolarity: v.earthPolarity,
+		...sharedJson(v),
 		notes: v.notes,
 		createdAt: v.createdAt.toISOString(),
 		updatedAt: v.updatedAt.toISOString()
